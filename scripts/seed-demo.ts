@@ -1,0 +1,55 @@
+/**
+ * Loads the invented demo scenario from demo/ (organisations, people, streets) into an EMPTY
+ * database; it does nothing when any organisation exists, so `npm start` can run it every time.
+ * Usage: node --import tsx scripts/seed-demo.ts   (same environment as the server)
+ */
+import { readFileSync } from 'node:fs'
+import { fileURLToPath } from 'node:url'
+import { dirname, join } from 'node:path'
+import { config } from '../server/config.ts'
+import { createSequelize } from '../server/db/sequelize.ts'
+import { Organisation, initModels } from '../server/models/index.ts'
+import { insertStreets } from '../server/services/streets.ts'
+import { createUser } from '../server/services/users.ts'
+import type { OrganisationKind, Role } from '../shared/types/roles.ts'
+
+interface DemoPeople {
+  organisations: { key: string; name: string; kind: OrganisationKind; medium?: string | null }[]
+  users: { email: string; name: string; role: Role; organisationKey: string; password: string }[]
+}
+interface DemoStreets {
+  features: { properties: { name: string; category: string }; geometry: { coordinates: number[][] } }[]
+}
+
+const demoDir = join(dirname(fileURLToPath(import.meta.url)), '..', 'demo')
+const readJson = <T>(name: string): T => JSON.parse(readFileSync(join(demoDir, name), 'utf8')) as T
+
+const cfg = config()
+const sequelize = createSequelize(cfg)
+initModels(sequelize)
+try {
+  if ((await Organisation.count()) > 0) {
+    console.error('[seed-demo] database already has data; demo not loaded')
+  } else {
+    const people = readJson<DemoPeople>('people.json')
+    const streets = readJson<DemoStreets>('streets.geojson')
+    const orgIds = new Map<string, number>()
+    for (const o of people.organisations) {
+      const org = await Organisation.create({ name: o.name, kind: o.kind, medium: o.medium ?? null })
+      orgIds.set(o.key, org.id)
+    }
+    for (const u of people.users) {
+      const organisationId = orgIds.get(u.organisationKey)
+      if (!organisationId) throw new Error(`demo user ${u.email}: unknown organisation ${u.organisationKey}`)
+      await createUser({ email: u.email, name: u.name, role: u.role, organisationId, password: u.password }, null)
+    }
+    const n = await insertStreets(
+      sequelize,
+      cfg.PROJECTED_EPSG,
+      streets.features.map((f) => ({ ...f.properties, coordinates: f.geometry.coordinates })),
+    )
+    console.error(`[seed-demo] loaded ${people.organisations.length} organisations, ${people.users.length} users, ${n} streets`)
+  }
+} finally {
+  await sequelize.close()
+}

@@ -1,0 +1,90 @@
+import type { ErrorRequestHandler, RequestHandler } from 'express'
+import { ZodError } from 'zod'
+import { ErrorCode } from '../../shared/errors.ts'
+import type { ErrorEnvelope } from '../../shared/errors.ts'
+import { fieldIssuesFromZod } from '../../shared/schemas/field-issues.ts'
+import { AppError } from '../errors.ts'
+import { logger } from '../logger.ts'
+
+function send(res: Parameters<RequestHandler>[1], status: number, body: ErrorEnvelope): void {
+  if (res.headersSent) return
+  res.status(status).json(body)
+}
+
+/** Unknown /api paths answer 404 in the envelope rather than falling through to the client. */
+export const apiNotFound: RequestHandler = (req, res) => {
+  send(res, 404, {
+    error: { code: ErrorCode.NOT_FOUND, message: `No API route ${req.method} ${req.path}`, requestId: String(req.id) },
+  })
+}
+
+function isDatabaseDown(err: unknown): boolean {
+  const name = (err as { name?: string })?.name ?? ''
+  return (
+    name === 'SequelizeConnectionError' ||
+    name === 'SequelizeConnectionRefusedError' ||
+    name === 'SequelizeConnectionAcquireTimeoutError' ||
+    name === 'SequelizeHostNotReachableError' ||
+    name === 'SequelizeConnectionTimedOutError'
+  )
+}
+
+/**
+ * The one place errors become HTTP responses. AppError: its status and code. zod: 400 with the
+ * fields. Body-parser failures: 400 / 413. Database unreachable: 503. Anything else: logged with
+ * the request id, 500 with a generic message (stack only in development).
+ */
+export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
+  const requestId = req.id === undefined ? undefined : String(req.id)
+  if (err instanceof AppError) {
+    send(res, err.status, {
+      error: { code: err.code, message: err.message, fields: err.fields, requestId },
+    })
+    return
+  }
+  if (err instanceof ZodError) {
+    send(res, 400, {
+      error: {
+        code: ErrorCode.VALIDATION_FAILED,
+        message: 'Some fields need attention',
+        fields: fieldIssuesFromZod(err),
+        requestId,
+      },
+    })
+    return
+  }
+  const type = (err as { type?: string })?.type
+  if (type === 'entity.parse.failed') {
+    send(res, 400, {
+      error: {
+        code: ErrorCode.VALIDATION_FAILED,
+        message: 'The request body is not valid JSON',
+        fields: [{ field: 'body', message: 'Not valid JSON' }],
+        requestId,
+      },
+    })
+    return
+  }
+  if (type === 'entity.too.large') {
+    send(res, 413, {
+      error: { code: ErrorCode.PAYLOAD_TOO_LARGE, message: 'The request body is too large', requestId },
+    })
+    return
+  }
+  if (isDatabaseDown(err)) {
+    logger.warn({ requestId, err: (err as Error).message }, 'database unavailable')
+    res.setHeader('Retry-After', '5')
+    send(res, 503, {
+      error: {
+        code: ErrorCode.SERVICE_UNAVAILABLE,
+        message: 'The database is not reachable at the moment; please try again shortly',
+        requestId,
+      },
+    })
+    return
+  }
+  logger.error({ requestId, err }, 'unhandled error')
+  send(res, 500, {
+    error: { code: ErrorCode.INTERNAL, message: 'Something went wrong on our side', requestId },
+  })
+}

@@ -1,0 +1,26 @@
+import { ipKeyGenerator, rateLimit } from 'express-rate-limit'
+import { ErrorCode } from '../../shared/errors.ts'
+
+/**
+ * Failed sign-ins per client address and e-mail: 10 in 15 minutes, successes not counted. The
+ * per-account lock in the database (services/auth.ts) holds across processes; this limit also
+ * stops one address from trying many accounts.
+ */
+export const signInLimiter = rateLimit({
+  windowMs: 15 * 60_000,
+  limit: 10,
+  skipSuccessfulRequests: true,
+  standardHeaders: 'draft-8',
+  legacyHeaders: false,
+  keyGenerator: (req) =>
+    `${ipKeyGenerator(req.ip ?? '')}|${String((req.body as { email?: unknown })?.email ?? '').toLowerCase()}`,
+  handler: (req, res) => {
+    res.status(429).json({
+      error: {
+        code: ErrorCode.RATE_LIMITED,
+        message: 'Too many sign-in attempts. Wait a few minutes and try again.',
+        requestId: String(req.id),
+      },
+    })
+  },
+})
