@@ -39,7 +39,11 @@ const server = new SMTPServer({
           text: mail.text ?? '',
           html: typeof mail.html === 'string' ? mail.html : null,
           receivedAt,
-          attachments: mail.attachments.map((a) => ({ filename: a.filename, size: a.size, contentType: a.contentType })),
+          attachments: mail.attachments.map((a) => ({
+            filename: a.filename,
+            size: a.size,
+            contentType: a.contentType,
+          })),
         }
         writeFileSync(join(dir, `${id}.json`), JSON.stringify(record, null, 2))
         callback()

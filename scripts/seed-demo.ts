@@ -18,7 +18,10 @@ interface DemoPeople {
   users: { email: string; name: string; role: Role; organisationKey: string; password: string }[]
 }
 interface DemoStreets {
-  features: { properties: { name: string; category: string }; geometry: { coordinates: number[][] } }[]
+  features: {
+    properties: { name: string; category: string }
+    geometry: { coordinates: number[][] }
+  }[]
 }
 
 const demoDir = join(dirname(fileURLToPath(import.meta.url)), '..', 'demo')
@@ -35,20 +38,30 @@ try {
     const streets = readJson<DemoStreets>('streets.geojson')
     const orgIds = new Map<string, number>()
     for (const o of people.organisations) {
-      const org = await Organisation.create({ name: o.name, kind: o.kind, medium: o.medium ?? null })
+      const org = await Organisation.create({
+        name: o.name,
+        kind: o.kind,
+        medium: o.medium ?? null,
+      })
       orgIds.set(o.key, org.id)
     }
     for (const u of people.users) {
       const organisationId = orgIds.get(u.organisationKey)
-      if (!organisationId) throw new Error(`demo user ${u.email}: unknown organisation ${u.organisationKey}`)
-      await createUser({ email: u.email, name: u.name, role: u.role, organisationId, password: u.password }, null)
+      if (!organisationId)
+        throw new Error(`demo user ${u.email}: unknown organisation ${u.organisationKey}`)
+      await createUser(
+        { email: u.email, name: u.name, role: u.role, organisationId, password: u.password },
+        null,
+      )
     }
     const n = await insertStreets(
       sequelize,
       cfg.PROJECTED_EPSG,
       streets.features.map((f) => ({ ...f.properties, coordinates: f.geometry.coordinates })),
     )
-    console.error(`[seed-demo] loaded ${people.organisations.length} organisations, ${people.users.length} users, ${n} streets`)
+    console.error(
+      `[seed-demo] loaded ${people.organisations.length} organisations, ${people.users.length} users, ${n} streets`,
+    )
   }
 } finally {
   await sequelize.close()

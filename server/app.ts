@@ -45,7 +45,11 @@ export function createApp(cfg: AppConfig, sequelize: Sequelize): CreatedApp {
       },
       autoLogging: { ignore: (req) => !(req.url ?? '').startsWith('/api') },
       serializers: {
-        req: (req: { id: string; method: string; url: string }) => ({ id: req.id, method: req.method, url: req.url }),
+        req: (req: { id: string; method: string; url: string }) => ({
+          id: req.id,
+          method: req.method,
+          url: req.url,
+        }),
       },
     }),
   )

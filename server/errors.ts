@@ -15,7 +15,11 @@ export class AppError extends Error {
 }
 
 export const notFound = (what: string, id?: string | number) =>
-  new AppError(ErrorCode.NOT_FOUND, 404, id === undefined ? `No such ${what}` : `No ${what} with id ${id}`)
+  new AppError(
+    ErrorCode.NOT_FOUND,
+    404,
+    id === undefined ? `No such ${what}` : `No ${what} with id ${id}`,
+  )
 
 export const forbidden = (message = 'Your role does not allow this') =>
   new AppError(ErrorCode.FORBIDDEN, 403, message)

@@ -22,7 +22,9 @@ export async function listCaughtMail(dir: string, limit = 200): Promise<CaughtMa
   }
   names.sort().reverse()
   const items = await Promise.all(
-    names.slice(0, limit).map(async (n) => JSON.parse(await readFile(join(dir, n), 'utf8')) as CaughtMailDto),
+    names
+      .slice(0, limit)
+      .map(async (n) => JSON.parse(await readFile(join(dir, n), 'utf8')) as CaughtMailDto),
   )
   return items
 }

@@ -14,7 +14,11 @@ function send(res: Parameters<RequestHandler>[1], status: number, body: ErrorEnv
 /** Unknown /api paths answer 404 in the envelope rather than falling through to the client. */
 export const apiNotFound: RequestHandler = (req, res) => {
   send(res, 404, {
-    error: { code: ErrorCode.NOT_FOUND, message: `No API route ${req.method} ${req.path}`, requestId: String(req.id) },
+    error: {
+      code: ErrorCode.NOT_FOUND,
+      message: `No API route ${req.method} ${req.path}`,
+      requestId: String(req.id),
+    },
   })
 }
 
@@ -67,7 +71,11 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   }
   if (type === 'entity.too.large') {
     send(res, 413, {
-      error: { code: ErrorCode.PAYLOAD_TOO_LARGE, message: 'The request body is too large', requestId },
+      error: {
+        code: ErrorCode.PAYLOAD_TOO_LARGE,
+        message: 'The request body is too large',
+        requestId,
+      },
     })
     return
   }

@@ -1,9 +1,18 @@
 import { DataTypes, Model } from 'sequelize'
-import type { CreationOptional, InferAttributes, InferCreationAttributes, NonAttribute, Sequelize } from 'sequelize'
+import type {
+  CreationOptional,
+  InferAttributes,
+  InferCreationAttributes,
+  NonAttribute,
+  Sequelize,
+} from 'sequelize'
 import type { User } from './user.ts'
 
 /** One entry of the audit trail: who did what, when, on which record. Never updated. */
-export class AuditEvent extends Model<InferAttributes<AuditEvent>, InferCreationAttributes<AuditEvent>> {
+export class AuditEvent extends Model<
+  InferAttributes<AuditEvent>,
+  InferCreationAttributes<AuditEvent>
+> {
   declare id: CreationOptional<number>
   declare at: Date
   declare actorUserId: number | null

@@ -1,5 +1,10 @@
 import { DataTypes, Model } from 'sequelize'
-import type { CreationOptional, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize'
+import type {
+  CreationOptional,
+  InferAttributes,
+  InferCreationAttributes,
+  Sequelize,
+} from 'sequelize'
 import type { OrganisationKind } from '../../shared/types/roles.ts'
 
 export class Organisation extends Model<

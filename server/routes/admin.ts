@@ -1,13 +1,23 @@
 import { Router } from 'express'
 import { z } from 'zod'
-import { createOrganisationSchema, createUserSchema, updateUserSchema } from '../../shared/schemas/auth.ts'
+import {
+  createOrganisationSchema,
+  createUserSchema,
+  updateUserSchema,
+} from '../../shared/schemas/auth.ts'
 import { pagingQuerySchema } from '../../shared/schemas/paging.ts'
 import { config } from '../config.ts'
 import { notFound } from '../errors.ts'
 import { allow } from '../middleware/access.ts'
 import { listAudit } from '../services/audit.ts'
 import { listCaughtMail } from '../mail/caught-mail.ts'
-import { createOrganisation, createUser, listOrganisations, listUsers, updateUser } from '../services/users.ts'
+import {
+  createOrganisation,
+  createUser,
+  listOrganisations,
+  listUsers,
+  updateUser,
+} from '../services/users.ts'
 
 export const adminRouter = Router()
 const adminOnly = allow(['admin'])

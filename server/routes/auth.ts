@@ -10,18 +10,23 @@ import type { User } from '../models/user.ts'
 
 export const authRouter = Router()
 
-authRouter.post('/sign-in', allow('public'), signInLimiter, (req: Request, res: Response, next: NextFunction) => {
-  req.body = signInSchema.parse(req.body)
-  passport.authenticate('local', (err: unknown, user: User | false) => {
-    if (err) return next(err)
-    if (!user) return next(new Error('passport returned no user'))
-    // passport >= 0.6 regenerates the session id here (no session fixation).
-    req.logIn(user, (loginErr) => {
-      if (loginErr) return next(loginErr)
-      res.json({ user: toUserDto(user) })
-    })
-  })(req, res, next)
-})
+authRouter.post(
+  '/sign-in',
+  allow('public'),
+  signInLimiter,
+  (req: Request, res: Response, next: NextFunction) => {
+    req.body = signInSchema.parse(req.body)
+    passport.authenticate('local', (err: unknown, user: User | false) => {
+      if (err) return next(err)
+      if (!user) return next(new Error('passport returned no user'))
+      // passport >= 0.6 regenerates the session id here (no session fixation).
+      req.logIn(user, (loginErr) => {
+        if (loginErr) return next(loginErr)
+        res.json({ user: toUserDto(user) })
+      })
+    })(req, res, next)
+  },
+)
 
 authRouter.post('/sign-out', allow('public'), (req, res, next) => {
   const userId = req.user?.id ?? null
@@ -32,7 +37,13 @@ authRouter.post('/sign-out', allow('public'), (req, res, next) => {
       res.clearCookie('tw.sid')
       const done = () => res.status(204).end()
       if (userId === null) return done()
-      recordAudit({ actorUserId: userId, action: 'signed-out', entityType: 'user', entityId: userId, ip: req.ip ?? null }).then(done, next)
+      recordAudit({
+        actorUserId: userId,
+        action: 'signed-out',
+        entityType: 'user',
+        entityId: userId,
+        ip: req.ip ?? null,
+      }).then(done, next)
     })
   })
 })

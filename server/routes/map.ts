@@ -21,7 +21,9 @@ export function mapRouter(sequelize: Sequelize): Router {
       ? [Math.min(...lons), Math.min(...lats), Math.max(...lons), Math.max(...lats)]
       : null
     res.json({
-      center_lonlat: extent ? [(extent[0]! + extent[2]!) / 2, (extent[1]! + extent[3]!) / 2] : [9.95, 52.6],
+      center_lonlat: extent
+        ? [(extent[0]! + extent[2]!) / 2, (extent[1]! + extent[3]!) / 2]
+        : [9.95, 52.6],
       extent_lonlat: extent,
       zoom: 15,
       projectedEpsg: config().PROJECTED_EPSG,

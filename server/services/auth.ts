@@ -15,7 +15,11 @@ export const WRONG_CREDENTIALS = 'E-mail or password is not right'
  * Check an e-mail and password. Repeated failures lock the account for a while (counted in the
  * database, so every app process sees the same count); every attempt is audited.
  */
-export async function verifyCredentials(email: string, password: string, ip: string | null): Promise<User> {
+export async function verifyCredentials(
+  email: string,
+  password: string,
+  ip: string | null,
+): Promise<User> {
   const cfg = config()
   const user = await User.findOne({
     where: { email },
@@ -23,12 +27,25 @@ export async function verifyCredentials(email: string, password: string, ip: str
   })
   if (!user) {
     await bcrypt.compare(password, DUMMY_HASH)
-    await recordAudit({ actorUserId: null, action: 'sign-in-failed', entityType: 'user', details: { email, reason: 'unknown e-mail' }, ip })
+    await recordAudit({
+      actorUserId: null,
+      action: 'sign-in-failed',
+      entityType: 'user',
+      details: { email, reason: 'unknown e-mail' },
+      ip,
+    })
     throw unauthenticated(WRONG_CREDENTIALS)
   }
   const now = new Date()
   if (user.lockedUntil && user.lockedUntil > now) {
-    await recordAudit({ actorUserId: null, action: 'sign-in-refused', entityType: 'user', entityId: user.id, details: { reason: 'locked' }, ip })
+    await recordAudit({
+      actorUserId: null,
+      action: 'sign-in-refused',
+      entityType: 'user',
+      entityId: user.id,
+      details: { reason: 'locked' },
+      ip,
+    })
     throw new AppError(
       ErrorCode.RATE_LIMITED,
       429,
@@ -42,13 +59,26 @@ export async function verifyCredentials(email: string, password: string, ip: str
     user.failedSignIns = lock ? 0 : failures
     if (lock) user.lockedUntil = addMinutes(now, cfg.SIGN_IN_LOCK_MIN)
     await user.save()
-    await recordAudit({ actorUserId: null, action: lock ? 'account-locked' : 'sign-in-failed', entityType: 'user', entityId: user.id, details: { reason: ok ? 'inactive' : 'wrong password', failures }, ip })
+    await recordAudit({
+      actorUserId: null,
+      action: lock ? 'account-locked' : 'sign-in-failed',
+      entityType: 'user',
+      entityId: user.id,
+      details: { reason: ok ? 'inactive' : 'wrong password', failures },
+      ip,
+    })
     throw unauthenticated(WRONG_CREDENTIALS)
   }
   user.failedSignIns = 0
   user.lockedUntil = null
   user.lastSignInAt = now
   await user.save()
-  await recordAudit({ actorUserId: user.id, action: 'signed-in', entityType: 'user', entityId: user.id, ip })
+  await recordAudit({
+    actorUserId: user.id,
+    action: 'signed-in',
+    entityType: 'user',
+    entityId: user.id,
+    ip,
+  })
   return user
 }

@@ -18,7 +18,12 @@ export async function homeItemsFor(user: User): Promise<HomeItem[]> {
     case 'admin':
       return [
         { key: 'users', label: 'Users', count: await User.count(), to: '/admin/users' },
-        { key: 'organisations', label: 'Organisations', count: await Organisation.count(), to: '/admin/users' },
+        {
+          key: 'organisations',
+          label: 'Organisations',
+          count: await Organisation.count(),
+          to: '/admin/users',
+        },
         {
           key: 'locked-users',
           label: 'Users locked out after failed sign-ins',
@@ -34,7 +39,12 @@ export async function homeItemsFor(user: User): Promise<HomeItem[]> {
     case 'asset_engineer':
       return [
         { key: 'reviews-due', label: 'Reviews due', count: 0, to: '/reviews' },
-        { key: 'over-capacity', label: 'Pipes over capacity without works', count: 0, to: '/network' },
+        {
+          key: 'over-capacity',
+          label: 'Pipes over capacity without works',
+          count: 0,
+          to: '/network',
+        },
       ]
     case 'permit_officer':
       return [

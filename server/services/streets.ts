@@ -43,7 +43,14 @@ export async function insertStreets(
 ): Promise<number> {
   const t = crsTransform(epsg)
   for (const f of features) {
-    const wkt = `LINESTRING(${f.coordinates.map((c) => t.toGrid(c).map((v) => v.toFixed(3)).join(' ')).join(', ')})`
+    const wkt = `LINESTRING(${f.coordinates
+      .map((c) =>
+        t
+          .toGrid(c)
+          .map((v) => v.toFixed(3))
+          .join(' '),
+      )
+      .join(', ')})`
     await sequelize.query(
       'INSERT INTO streets (name, category, geom, created_at, updated_at) VALUES (?, ?, ST_GeomFromText(?, ?), NOW(), NOW())',
       { replacements: [f.name, f.category, wkt, epsg], type: QueryTypes.INSERT },

@@ -1,6 +1,10 @@
 import bcrypt from 'bcrypt'
 import { UniqueConstraintError } from 'sequelize'
-import type { CreateOrganisationInput, CreateUserInput, UpdateUserInput } from '../../shared/schemas/auth.ts'
+import type {
+  CreateOrganisationInput,
+  CreateUserInput,
+  UpdateUserInput,
+} from '../../shared/schemas/auth.ts'
 import type { OrganisationDto, UserDto } from '../../shared/types/user.ts'
 import { config } from '../config.ts'
 import { conflict, notFound, validationFailed } from '../errors.ts'
@@ -8,7 +12,13 @@ import { Organisation, User } from '../models/index.ts'
 import { recordAudit } from './audit.ts'
 
 export function toOrganisationDto(o: Organisation): OrganisationDto {
-  return { id: o.id, name: o.name, kind: o.kind, medium: o.medium, createdAt: o.createdAt.toISOString() }
+  return {
+    id: o.id,
+    name: o.name,
+    kind: o.kind,
+    medium: o.medium,
+    createdAt: o.createdAt.toISOString(),
+  }
 }
 
 /** The API shape of a user; the user must be loaded with its organisation. */
@@ -47,11 +57,19 @@ export async function createOrganisation(
       kind: input.kind,
       medium: input.kind === 'network_owner' ? (input.medium ?? null) : null,
     })
-    await recordAudit({ actorUserId, action: 'organisation-created', entityType: 'organisation', entityId: org.id, details: { name: org.name, kind: org.kind } })
+    await recordAudit({
+      actorUserId,
+      action: 'organisation-created',
+      entityType: 'organisation',
+      entityId: org.id,
+      details: { name: org.name, kind: org.kind },
+    })
     return toOrganisationDto(org)
   } catch (err) {
     if (err instanceof UniqueConstraintError) {
-      throw conflict('An organisation with this name exists', [{ field: 'name', message: 'Already taken' }])
+      throw conflict('An organisation with this name exists', [
+        { field: 'name', message: 'Already taken' },
+      ])
     }
     throw err
   }
@@ -65,7 +83,10 @@ export async function listUsers(): Promise<UserDto[]> {
   return rows.map(toUserDto)
 }
 
-export async function createUser(input: CreateUserInput, actorUserId: number | null): Promise<UserDto> {
+export async function createUser(
+  input: CreateUserInput,
+  actorUserId: number | null,
+): Promise<UserDto> {
   const org = await Organisation.findByPk(input.organisationId)
   if (!org) throw validationFailed([{ field: 'organisationId', message: 'No such organisation' }])
   const passwordHash = await hashPassword(input.password)
@@ -79,18 +100,30 @@ export async function createUser(input: CreateUserInput, actorUserId: number | n
       lockedUntil: null,
       lastSignInAt: null,
     })
-    await recordAudit({ actorUserId, action: 'user-created', entityType: 'user', entityId: user.id, details: { email: user.email, role: user.role, organisationId: org.id } })
+    await recordAudit({
+      actorUserId,
+      action: 'user-created',
+      entityType: 'user',
+      entityId: user.id,
+      details: { email: user.email, role: user.role, organisationId: org.id },
+    })
     user.organisation = org
     return toUserDto(user)
   } catch (err) {
     if (err instanceof UniqueConstraintError) {
-      throw conflict('A user with this e-mail address exists', [{ field: 'email', message: 'Already registered' }])
+      throw conflict('A user with this e-mail address exists', [
+        { field: 'email', message: 'Already registered' },
+      ])
     }
     throw err
   }
 }
 
-export async function updateUser(id: number, input: UpdateUserInput, actorUserId: number): Promise<UserDto> {
+export async function updateUser(
+  id: number,
+  input: UpdateUserInput,
+  actorUserId: number,
+): Promise<UserDto> {
   const user = await findUserWithOrganisation(id)
   if (!user) throw notFound('user', id)
   if (input.name !== undefined) user.name = input.name
@@ -103,6 +136,12 @@ export async function updateUser(id: number, input: UpdateUserInput, actorUserId
   }
   await user.save()
   const changed = Object.keys(input).filter((k) => k !== 'password')
-  await recordAudit({ actorUserId, action: 'user-updated', entityType: 'user', entityId: user.id, details: { changed, passwordReset: input.password !== undefined } })
+  await recordAudit({
+    actorUserId,
+    action: 'user-updated',
+    entityType: 'user',
+    entityId: user.id,
+    details: { changed, passwordReset: input.password !== undefined },
+  })
   return toUserDto(user)
 }

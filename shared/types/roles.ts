@@ -3,7 +3,12 @@ export const ROLES = ['applicant', 'asset_engineer', 'permit_officer', 'admin'] 
 export type Role = (typeof ROLES)[number]
 
 /** What kind of organisation a user works for. */
-export const ORGANISATION_KINDS = ['contractor', 'network_owner', 'street_authority', 'operator'] as const
+export const ORGANISATION_KINDS = [
+  'contractor',
+  'network_owner',
+  'street_authority',
+  'operator',
+] as const
 export type OrganisationKind = (typeof ORGANISATION_KINDS)[number]
 
 /** Plain-word labels shown in the client. */

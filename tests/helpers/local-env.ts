@@ -7,7 +7,9 @@ export const ROOT = resolve(import.meta.dirname, '..', '..')
 /** Start the private MariaDB (no-op when it runs) and make sure the named databases exist. */
 export function ensureDatabase(...names: string[]): void {
   const run = (args: string[]) => {
-    const r = spawnSync(join(ROOT, 'scripts', 'db'), args, { stdio: ['ignore', 'ignore', 'inherit'] })
+    const r = spawnSync(join(ROOT, 'scripts', 'db'), args, {
+      stdio: ['ignore', 'ignore', 'inherit'],
+    })
     if (r.status !== 0) throw new Error(`scripts/db ${args.join(' ')} failed`)
   }
   run(['start'])
@@ -26,7 +28,10 @@ export function readLocalEnv(): Record<string, string> {
 }
 
 /** Environment for an app instance on the given database, for tests. */
-export function testEnv(dbName: string, extra: Record<string, string> = {}): Record<string, string> {
+export function testEnv(
+  dbName: string,
+  extra: Record<string, string> = {},
+): Record<string, string> {
   const local = readLocalEnv()
   return {
     NODE_ENV: 'test',

@@ -55,7 +55,13 @@ export async function createTestOrganisation(kind: OrganisationKind, name = uniq
 export async function createTestUser(role: Role, organisation?: Organisation) {
   passwordHash ??= await bcrypt.hash(TEST_PASSWORD, 12)
   const kind: OrganisationKind =
-    role === 'applicant' ? 'contractor' : role === 'asset_engineer' ? 'network_owner' : role === 'permit_officer' ? 'street_authority' : 'operator'
+    role === 'applicant'
+      ? 'contractor'
+      : role === 'asset_engineer'
+        ? 'network_owner'
+        : role === 'permit_officer'
+          ? 'street_authority'
+          : 'operator'
   const org = organisation ?? (await createTestOrganisation(kind))
   const user = await User.create({
     email: `${unique(role)}@example.test`,
@@ -74,6 +80,7 @@ export async function signedInAgent(app: TestApp, role: Role, organisation?: Org
   const u = await createTestUser(role, organisation)
   const agent = app.agent()
   const res = await agent.post('/api/auth/sign-in').send({ email: u.email, password: u.password })
-  if (res.status !== 200) throw new Error(`sign-in failed: ${res.status} ${JSON.stringify(res.body)}`)
+  if (res.status !== 200)
+    throw new Error(`sign-in failed: ${res.status} ${JSON.stringify(res.body)}`)
   return { agent, ...u }
 }

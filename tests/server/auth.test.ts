@@ -15,7 +15,9 @@ describe('POST /api/auth/sign-in', () => {
   it('when the password is right, then it responds 200 with the user and sets a session cookie', async () => {
     const u = await createTestUser('applicant')
     const agent = app.agent()
-    const res = await agent.post('/api/auth/sign-in').send({ email: u.email.toUpperCase(), password: TEST_PASSWORD })
+    const res = await agent
+      .post('/api/auth/sign-in')
+      .send({ email: u.email.toUpperCase(), password: TEST_PASSWORD })
     expect(res.status).toBe(200)
     expect(res.body).toEqual({
       user: {
@@ -41,24 +43,37 @@ describe('POST /api/auth/sign-in', () => {
     expect(cookie).toMatch(/SameSite=Lax/)
     const signed = decodeURIComponent(/tw\.sid=([^;]+)/.exec(cookie)?.[1] ?? '')
     const sid = /^s:([^.]+)\./.exec(signed)?.[1]
-    const rows = await app.sequelize.query<{ data: string }>('SELECT data FROM sessions WHERE sid = ?', {
-      replacements: [sid],
-      type: QueryTypes.SELECT,
-    })
+    const rows = await app.sequelize.query<{ data: string }>(
+      'SELECT data FROM sessions WHERE sid = ?',
+      {
+        replacements: [sid],
+        type: QueryTypes.SELECT,
+      },
+    )
     expect(JSON.parse(rows[0]!.data).passport.user).toBe(u.user.id)
   })
 
   it('when the password is wrong, then it responds 401 UNAUTHENTICATED', async () => {
     const u = await createTestUser('applicant')
-    const res = await app.agent().post('/api/auth/sign-in').send({ email: u.email, password: 'not the password' })
+    const res = await app
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email: u.email, password: 'not the password' })
     expect(res.status).toBe(401)
     expect(res.body).toEqual({
-      error: { code: 'UNAUTHENTICATED', message: 'E-mail or password is not right', requestId: expect.any(String) },
+      error: {
+        code: 'UNAUTHENTICATED',
+        message: 'E-mail or password is not right',
+        requestId: expect.any(String),
+      },
     })
   })
 
   it('when the e-mail is unknown, then it responds with the same 401', async () => {
-    const res = await app.agent().post('/api/auth/sign-in').send({ email: 'nobody@example.test', password: 'whatever' })
+    const res = await app
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email: 'nobody@example.test', password: 'whatever' })
     expect(res.status).toBe(401)
     expect(res.body.error.message).toBe('E-mail or password is not right')
   })
@@ -89,10 +104,16 @@ describe('POST /api/auth/sign-in', () => {
   it('when the password was wrong 5 times, then even the right one is refused with 429 for a while', async () => {
     const u = await createTestUser('permit_officer')
     for (let i = 0; i < 5; i++) {
-      const r = await app.agent().post('/api/auth/sign-in').send({ email: u.email, password: `wrong-${i}` })
+      const r = await app
+        .agent()
+        .post('/api/auth/sign-in')
+        .send({ email: u.email, password: `wrong-${i}` })
       expect(r.status).toBe(401)
     }
-    const res = await app.agent().post('/api/auth/sign-in').send({ email: u.email, password: TEST_PASSWORD })
+    const res = await app
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email: u.email, password: TEST_PASSWORD })
     expect(res.status).toBe(429)
     expect(res.body.error.code).toBe('RATE_LIMITED')
     expect(res.body.error.message).toMatch(/Too many failed sign-ins/)
@@ -114,16 +135,23 @@ describe('POST /api/auth/sign-in', () => {
   it('when the user is deactivated, then the right password is refused', async () => {
     const u = await createTestUser('applicant')
     await u.user.update({ active: false })
-    const res = await app.agent().post('/api/auth/sign-in').send({ email: u.email, password: TEST_PASSWORD })
+    const res = await app
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email: u.email, password: TEST_PASSWORD })
     expect(res.status).toBe(401)
   })
 
   it('regenerates the session id at sign-in (no session fixation)', async () => {
     const u = await createTestUser('applicant')
     const agent = app.agent()
-    const first = await agent.post('/api/auth/sign-in').send({ email: u.email, password: TEST_PASSWORD })
+    const first = await agent
+      .post('/api/auth/sign-in')
+      .send({ email: u.email, password: TEST_PASSWORD })
     const sid1 = /tw\.sid=([^;]+)/.exec(String(first.headers['set-cookie']))?.[1]
-    const second = await agent.post('/api/auth/sign-in').send({ email: u.email, password: TEST_PASSWORD })
+    const second = await agent
+      .post('/api/auth/sign-in')
+      .send({ email: u.email, password: TEST_PASSWORD })
     const sid2 = /tw\.sid=([^;]+)/.exec(String(second.headers['set-cookie']))?.[1]
     expect(sid1).toBeTruthy()
     expect(sid2).toBeTruthy()
@@ -135,13 +163,20 @@ describe('GET /api/auth/me and POST /api/auth/sign-out', () => {
   it('when not signed in, then me responds 401', async () => {
     const res = await app.agent().get('/api/auth/me')
     expect(res.status).toBe(401)
-    expect(res.body.error).toEqual({ code: 'UNAUTHENTICATED', message: 'Please sign in', requestId: expect.any(String) })
+    expect(res.body.error).toEqual({
+      code: 'UNAUTHENTICATED',
+      message: 'Please sign in',
+      requestId: expect.any(String),
+    })
   })
 
   it('after sign-out, me responds 401 and the sign-out is audited', async () => {
     const u = await createTestUser('asset_engineer')
     const agent = app.agent()
-    await agent.post('/api/auth/sign-in').send({ email: u.email, password: TEST_PASSWORD }).expect(200)
+    await agent
+      .post('/api/auth/sign-in')
+      .send({ email: u.email, password: TEST_PASSWORD })
+      .expect(200)
     const me = await agent.get('/api/auth/me')
     expect(me.status).toBe(200)
     expect(me.body.user.email).toBe(u.email)

@@ -32,7 +32,9 @@ describe('migrations', () => {
     await migrator.up()
     expect(await migrator.pending()).toEqual([])
     const up = await tables()
-    expect(up).toEqual(expect.arrayContaining(['organisations', 'users', 'sessions', 'audit_events', 'streets']))
+    expect(up).toEqual(
+      expect.arrayContaining(['organisations', 'users', 'sessions', 'audit_events', 'streets']),
+    )
     await migrator.down({ to: 0 })
     expect(await tables()).toEqual([])
     await migrator.up()
@@ -46,9 +48,12 @@ describe('migrations', () => {
       { type: QueryTypes.SELECT },
     )
     expect(srid[0]?.srid).toBe(25832)
-    const idx = await sequelize.query<{ Index_type: string }>("SHOW INDEX FROM streets WHERE Key_name = 'streets_geom'", {
-      type: QueryTypes.SELECT,
-    })
+    const idx = await sequelize.query<{ Index_type: string }>(
+      "SHOW INDEX FROM streets WHERE Key_name = 'streets_geom'",
+      {
+        type: QueryTypes.SELECT,
+      },
+    )
     expect(idx[0]?.Index_type).toBe('SPATIAL')
   })
 })

@@ -28,7 +28,11 @@ describe('role checks', () => {
         const res = await agent[route.method](route.path).send({})
         expect(res.status).toBe(403)
         expect(res.body).toEqual({
-          error: { code: 'FORBIDDEN', message: 'Your role does not allow this', requestId: expect.any(String) },
+          error: {
+            code: 'FORBIDDEN',
+            message: 'Your role does not allow this',
+            requestId: expect.any(String),
+          },
         })
       })
     }
@@ -43,9 +47,17 @@ describe('admin: organisations and users', () => {
   it('when an admin creates an organisation and a user in it, then the user can sign in', async () => {
     const { agent } = await signedInAgent(app, 'admin')
     const orgName = unique('Test Water Board')
-    const org = await agent.post('/api/admin/organisations').send({ name: orgName, kind: 'network_owner', medium: 'water' })
+    const org = await agent
+      .post('/api/admin/organisations')
+      .send({ name: orgName, kind: 'network_owner', medium: 'water' })
     expect(org.status).toBe(201)
-    expect(org.body).toEqual({ id: expect.any(Number), name: orgName, kind: 'network_owner', medium: 'water', createdAt: expect.any(String) })
+    expect(org.body).toEqual({
+      id: expect.any(Number),
+      name: orgName,
+      kind: 'network_owner',
+      medium: 'water',
+      createdAt: expect.any(String),
+    })
     const email = `${unique('eng')}@example.test`
     const user = await agent.post('/api/admin/users').send({
       email,
@@ -70,7 +82,10 @@ describe('admin: organisations and users', () => {
       fields: [{ field: 'email', message: 'Already registered' }],
       requestId: expect.any(String),
     })
-    const signIn = await app.agent().post('/api/auth/sign-in').send({ email, password: 'a long enough password' })
+    const signIn = await app
+      .agent()
+      .post('/api/auth/sign-in')
+      .send({ email, password: 'a long enough password' })
     expect(signIn.status).toBe(200)
     expect(signIn.body.user.role).toBe('asset_engineer')
   })
@@ -85,7 +100,9 @@ describe('admin: organisations and users', () => {
       password: 'short',
     })
     expect(res.status).toBe(400)
-    expect(res.body.error.fields).toEqual([{ field: 'password', message: 'Use at least 12 characters' }])
+    expect(res.body.error.fields).toEqual([
+      { field: 'password', message: 'Use at least 12 characters' },
+    ])
   })
 
   it('when an unknown role is given, then it responds 400 naming role', async () => {
@@ -105,7 +122,9 @@ describe('admin: organisations and users', () => {
     const admin = await signedInAgent(app, 'admin')
     const target = await signedInAgent(app, 'applicant')
     expect((await target.agent.get('/api/auth/me')).status).toBe(200)
-    const res = await admin.agent.patch(`/api/admin/users/${target.user.id}`).send({ active: false })
+    const res = await admin.agent
+      .patch(`/api/admin/users/${target.user.id}`)
+      .send({ active: false })
     expect(res.status).toBe(200)
     expect(res.body.active).toBe(false)
     expect((await target.agent.get('/api/auth/me')).status).toBe(401)
