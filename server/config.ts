@@ -16,12 +16,19 @@ const envSchema = z.object({
     .transform((v) => v === '1' || v === 'true'),
   DB_HOST: z.string().default('127.0.0.1'),
   DB_PORT: z.coerce.number().int().min(1).max(65535).default(3307),
-  DB_NAME: z.string().regex(/^[A-Za-z0-9_]+$/).default('trenchward'),
+  DB_NAME: z
+    .string()
+    .regex(/^[A-Za-z0-9_]+$/)
+    .default('trenchward'),
   DB_USER: z.string().min(1),
   DB_PASSWORD: z.string().min(1),
   DB_POOL_MAX: z.coerce.number().int().min(1).max(100).default(10),
   SESSION_SECRET: z.string().min(32),
-  SESSION_MAX_AGE_H: z.coerce.number().positive().max(24 * 30).default(12),
+  SESSION_MAX_AGE_H: z.coerce
+    .number()
+    .positive()
+    .max(24 * 30)
+    .default(12),
   SMTP_HOST: z.string().default('127.0.0.1'),
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
   MAIL_FROM: z.string().default('Trenchward <no-reply@trenchward.invalid>'),
@@ -32,7 +39,11 @@ const envSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   BCRYPT_COST: z.coerce.number().int().min(12).max(15).default(12),
   SIGN_IN_MAX_FAILURES: z.coerce.number().int().min(1).max(100).default(5),
-  SIGN_IN_LOCK_MIN: z.coerce.number().positive().max(24 * 60).default(15),
+  SIGN_IN_LOCK_MIN: z.coerce
+    .number()
+    .positive()
+    .max(24 * 60)
+    .default(15),
 })
 
 export type AppConfig = Readonly<z.infer<typeof envSchema>> & { readonly publicUrl: string }
