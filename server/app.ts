@@ -15,6 +15,7 @@ import { requireClientHeader } from './middleware/csrf.ts'
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts'
 import { initModels } from './models/index.ts'
 import { adminRouter } from './routes/admin.ts'
+import { applicationsRouter } from './routes/applications.ts'
 import { authRouter } from './routes/auth.ts'
 import { homeRouter } from './routes/home.ts'
 import { mapRouter } from './routes/map.ts'
@@ -94,6 +95,7 @@ export function createApp(cfg: AppConfig, sequelize: Sequelize): CreatedApp {
   api.use('/auth', authRouter)
   api.use('/home', homeRouter)
   api.use('/admin', adminRouter)
+  api.use('/applications', applicationsRouter(sequelize))
   api.use(mapRouter(sequelize))
   api.use(apiNotFound)
   app.use('/api', api)
