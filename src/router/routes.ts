@@ -1,0 +1,176 @@
+import type { RouteRecordRaw } from 'vue-router'
+import {
+  matAddLocationAlt,
+  matAssignment,
+  matFactCheck,
+  matFolderOpen,
+  matHistory,
+  matHome,
+  matLayers,
+  matLibraryBooks,
+  matMap,
+  matMarkEmailRead,
+  matPeople,
+  matRequestQuote,
+} from '@quasar/extras/material-icons'
+import './route-meta.ts'
+
+// Every page is a lazy import, so each screen (and the map code) loads only when it is opened.
+const BeingBuiltPage = () => import('../pages/BeingBuiltPage.vue')
+
+/** Routes as data; the order inside the main layout is the order of the navigation. */
+export const routes: RouteRecordRaw[] = [
+  {
+    path: '/sign-in',
+    component: () => import('../layouts/PlainLayout.vue'),
+    children: [
+      {
+        path: '',
+        name: 'sign-in',
+        component: () => import('../pages/SignInPage.vue'),
+        meta: { public: true, title: 'Sign in' },
+      },
+    ],
+  },
+  {
+    path: '/',
+    component: () => import('../layouts/MainLayout.vue'),
+    children: [
+      {
+        path: '',
+        name: 'home',
+        component: () => import('../pages/HomePage.vue'),
+        meta: { title: 'Home', navIcon: matHome },
+      },
+
+      // Applicant
+      {
+        path: 'my-applications',
+        name: 'my-applications',
+        component: BeingBuiltPage,
+        meta: {
+          title: 'My applications',
+          navIcon: matFolderOpen,
+          roles: ['applicant'],
+          summary:
+            'Every application your organisation has made, with its status, the answer of each pipe owner and the permit once it is granted.',
+        },
+      },
+      {
+        path: 'new-application',
+        name: 'new-application',
+        component: BeingBuiltPage,
+        meta: {
+          title: 'New application',
+          navIcon: matAddLocationAlt,
+          roles: ['applicant'],
+          summary:
+            'Draw your works on the town map, describe each excavation, crane set-up or stockpile, and see the check on the pipes below at once.',
+        },
+      },
+
+      // Network engineer
+      {
+        path: 'reviews',
+        name: 'reviews',
+        component: BeingBuiltPage,
+        meta: {
+          title: 'Reviews',
+          navIcon: matFactCheck,
+          roles: ['asset_engineer'],
+          summary:
+            'The requests that touch your pipes, soonest due first, each with the affected segments, their checks and your decision.',
+        },
+      },
+      {
+        path: 'network',
+        name: 'network',
+        component: BeingBuiltPage,
+        meta: {
+          title: 'Network',
+          navIcon: matLayers,
+          roles: ['asset_engineer'],
+          summary:
+            'Your pipes on the map and in a table, with their design data, baseline checks and imports from GeoJSON or CSV.',
+        },
+      },
+      {
+        path: 'condition-library',
+        name: 'condition-library',
+        component: BeingBuiltPage,
+        meta: {
+          title: 'Condition library',
+          navIcon: matLibraryBooks,
+          roles: ['asset_engineer'],
+          summary:
+            'Your standard conditions and protection rules, ready to attach to an acceptance in one click.',
+        },
+      },
+
+      // Permit officer
+      {
+        path: 'applications',
+        name: 'applications',
+        component: BeingBuiltPage,
+        meta: {
+          title: 'Applications',
+          navIcon: matAssignment,
+          roles: ['permit_officer'],
+          summary:
+            'Every application in the borough with each owner’s answer; overdue reviews are marked so you can chase them.',
+        },
+      },
+      {
+        path: 'works-map',
+        name: 'works-map',
+        component: BeingBuiltPage,
+        meta: {
+          title: 'Works map',
+          navIcon: matMap,
+          roles: ['permit_officer'],
+          summary:
+            'All planned and live works on one map and timeline, with works that clash in place and time picked out.',
+        },
+      },
+      {
+        path: 'fee-schedule',
+        name: 'fee-schedule',
+        component: BeingBuiltPage,
+        meta: {
+          title: 'Fee schedule',
+          navIcon: matRequestQuote,
+          roles: ['permit_officer'],
+          summary: 'The fees the street authority charges per permit, extension and activity.',
+        },
+      },
+
+      // Administrator
+      {
+        path: 'admin/users',
+        name: 'admin-users',
+        component: () => import('../pages/UsersAndOrganisationsPage.vue'),
+        meta: { title: 'Users and organisations', navIcon: matPeople, roles: ['admin'] },
+      },
+      {
+        path: 'admin/mail',
+        name: 'admin-mail',
+        component: () => import('../pages/OutgoingMailPage.vue'),
+        meta: { title: 'Outgoing mail', navIcon: matMarkEmailRead, roles: ['admin'] },
+      },
+      {
+        path: 'admin/audit',
+        name: 'admin-audit',
+        component: () => import('../pages/AuditLogPage.vue'),
+        meta: { title: 'Audit log', navIcon: matHistory, roles: ['admin'] },
+      },
+    ],
+  },
+
+  // Must stay last: anything no route above matches.
+  {
+    path: '/:pathMatch(.*)*',
+    name: 'not-found',
+    component: () => import('../pages/NotFoundPage.vue'),
+    meta: { public: true, title: 'Page not found' },
+  },
+]
