@@ -1,6 +1,8 @@
 /**
- * Loads the invented demo scenario from demo/ (organisations, people, streets) into an EMPTY
- * database; it does nothing when any organisation exists, so `npm start` can run it every time.
+ * Loads the invented demo scenario from demo/ (organisations, people, streets, and the pipe
+ * networks in demo/networks/, imported through the real import service as each owner's
+ * engineer) into an EMPTY database; it does nothing when any organisation exists, so
+ * `npm start` can run it every time.
  * Usage: node --import tsx scripts/seed-demo.ts   (same environment as the server)
  */
 import { readFileSync } from 'node:fs'
@@ -8,7 +10,8 @@ import { fileURLToPath } from 'node:url'
 import { dirname, join } from 'node:path'
 import { config } from '../server/config.ts'
 import { createSequelize } from '../server/db/sequelize.ts'
-import { Organisation, initModels } from '../server/models/index.ts'
+import { Organisation, User, initModels } from '../server/models/index.ts'
+import { importLocalFile } from '../server/services/import/import-local-file.ts'
 import { insertStreets } from '../server/services/streets.ts'
 import { createUser } from '../server/services/users.ts'
 import type { OrganisationKind, Role } from '../shared/types/roles.ts'
@@ -23,6 +26,13 @@ interface DemoStreets {
     geometry: { coordinates: number[][] }
   }[]
 }
+
+/** The demo networks and the medium of the network owner each belongs to. */
+const NETWORKS = [
+  { file: 'wendmoor-water.geojson', ownerMedium: 'water' },
+  { file: 'wendmoor-sewer.geojson', ownerMedium: 'water' },
+  { file: 'brackenfold-gas.geojson', ownerMedium: 'gas' },
+]
 
 const demoDir = join(dirname(fileURLToPath(import.meta.url)), '..', 'demo')
 const readJson = <T>(name: string): T => JSON.parse(readFileSync(join(demoDir, name), 'utf8')) as T
@@ -59,8 +69,30 @@ try {
       cfg.PROJECTED_EPSG,
       streets.features.map((f) => ({ ...f.properties, coordinates: f.geometry.coordinates })),
     )
+    let segments = 0
+    for (const net of NETWORKS) {
+      const owner = await Organisation.findOne({
+        where: { kind: 'network_owner', medium: net.ownerMedium },
+      })
+      const engineer =
+        owner &&
+        (await User.findOne({ where: { organisationId: owner.id, role: 'asset_engineer' } }))
+      if (!engineer) {
+        throw new Error(
+          `demo network ${net.file}: no ${net.ownerMedium} network owner with an engineer`,
+        )
+      }
+      const job = await importLocalFile(
+        engineer,
+        join(demoDir, 'networks', net.file),
+        'geojson',
+        cfg,
+        sequelize,
+      )
+      segments += job.segmentsInserted
+    }
     console.error(
-      `[seed-demo] loaded ${people.organisations.length} organisations, ${people.users.length} users, ${n} streets`,
+      `[seed-demo] loaded ${people.organisations.length} organisations, ${people.users.length} users, ${n} streets, ${segments} pipe segments`,
     )
   }
 } finally {

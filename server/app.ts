@@ -9,7 +9,7 @@ import type { Sequelize } from 'sequelize'
 import { configurePassport } from './auth/passport.ts'
 import { createSessionMiddleware } from './auth/session.ts'
 import type { AppConfig } from './config.ts'
-import { logger } from './logger.ts'
+import { logger, setLogLevel } from './logger.ts'
 import { allow } from './middleware/access.ts'
 import { requireClientHeader } from './middleware/csrf.ts'
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts'
@@ -19,6 +19,7 @@ import { applicationsRouter } from './routes/applications.ts'
 import { authRouter } from './routes/auth.ts'
 import { homeRouter } from './routes/home.ts'
 import { mapRouter } from './routes/map.ts'
+import { networkRouter } from './routes/network.ts'
 
 export interface CreatedApp {
   app: express.Express
@@ -32,6 +33,7 @@ export interface CreatedApp {
  */
 export function createApp(cfg: AppConfig, sequelize: Sequelize): CreatedApp {
   initModels(sequelize)
+  setLogLevel(cfg.LOG_LEVEL)
   const app = express()
   app.disable('x-powered-by')
   app.set('trust proxy', cfg.TRUST_PROXY ? 1 : false)
@@ -97,6 +99,7 @@ export function createApp(cfg: AppConfig, sequelize: Sequelize): CreatedApp {
   api.use('/admin', adminRouter)
   api.use('/applications', applicationsRouter(sequelize))
   api.use(mapRouter(sequelize))
+  api.use('/network', networkRouter(sequelize))
   api.use(apiNotFound)
   app.use('/api', api)
 

@@ -33,9 +33,71 @@ const envSchema = z.object({
   SMTP_PORT: z.coerce.number().int().min(1).max(65535).default(2525),
   MAIL_FROM: z.string().default('Trenchward <no-reply@trenchward.invalid>'),
   MAIL_CATCH_DIR: z.string().optional(),
+  /** Smallest influence distance of any activity, m (owners' protection strips are seldom less). */
+  SCREENING_MIN_DISTANCE_M: z.coerce.number().min(0).max(100).default(5),
   PROJECTED_EPSG: z.coerce.number().int().positive().default(25832),
   CLIENT_DIST_DIR: z.string().optional(),
   DATA_DIR: z.string().optional(),
+  /** Where uploaded import files are kept; default <DATA_DIR or .data>/uploads. */
+  UPLOAD_DIR: z.string().optional(),
+  /** Largest accepted import upload, in megabytes. */
+  IMPORT_MAX_UPLOAD_MB: z.coerce.number().positive().max(4096).default(512),
+  /**
+   * The area pipes may lie in, as minLon,minLat,maxLon,maxLat (WGS84). A vertex outside it is
+   * an import error: it catches swapped axes and data in the wrong CRS. The default frames the
+   * demo town.
+   */
+  SERVICE_AREA_BBOX: z
+    .string()
+    .default('9.85,52.55,10.05,52.65')
+    .transform((v, ctx) => {
+      const n = v.split(',').map((p) => Number(p.trim()))
+      const [minLon, minLat, maxLon, maxLat] = n
+      const ok =
+        n.length === 4 &&
+        n.every(Number.isFinite) &&
+        minLon! >= -180 &&
+        maxLon! <= 180 &&
+        minLat! >= -90 &&
+        maxLat! <= 90 &&
+        minLon! < maxLon! &&
+        minLat! < maxLat!
+      if (!ok) {
+        ctx.addIssue({ code: 'custom', message: 'expected minLon,minLat,maxLon,maxLat in degrees' })
+        return z.NEVER
+      }
+      return n as [number, number, number, number]
+    }),
+  /** Most features the public screening outline returns for one map view. */
+  OUTLINE_MAX_FEATURES: z.coerce.number().int().min(1).max(100_000).default(5000),
+  /** Working days an owner has to answer a review (weekends and PUBLIC_HOLIDAYS skipped). */
+  REVIEW_PERIOD_WORKING_DAYS: z.coerce.number().int().min(1).max(260).default(10),
+  /** Public holidays as a comma list of YYYY-MM-DD; they do not count as working days. */
+  PUBLIC_HOLIDAYS: z
+    .string()
+    .default('')
+    .transform((v, ctx) => {
+      const days = v
+        .split(',')
+        .map((d) => d.trim())
+        .filter(Boolean)
+      const bad = days.find((d) => !/^\d{4}-\d{2}-\d{2}$/.test(d))
+      if (bad) {
+        ctx.addIssue({ code: 'custom', message: `expected YYYY-MM-DD dates, got ${bad}` })
+        return z.NEVER
+      }
+      return days
+    }),
+  /** Owners get a reminder this many working days before a review is due (and on the day). */
+  REMINDER_DAYS_BEFORE: z.coerce.number().int().min(0).max(30).default(2),
+  /** How often the reminder scheduler looks for due reviews, in seconds. */
+  REMINDER_INTERVAL_S: z.coerce.number().int().min(5).max(86_400).default(900),
+  /** Permit-signing key folder (default <DATA_DIR or .data>/keys); keep it out of the repo. */
+  KEY_DIR: z.string().optional(),
+  /** Issued permit PDFs (default <DATA_DIR or .data>/permits). */
+  PERMIT_DIR: z.string().optional(),
+  /** Largest PDF accepted by the public document check, in megabytes. */
+  VERIFY_MAX_UPLOAD_MB: z.coerce.number().positive().max(100).default(20),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   BCRYPT_COST: z.coerce.number().int().min(12).max(15).default(12),
   SIGN_IN_MAX_FAILURES: z.coerce.number().int().min(1).max(100).default(5),
@@ -46,7 +108,17 @@ const envSchema = z.object({
     .default(15),
 })
 
-export type AppConfig = Readonly<z.infer<typeof envSchema>> & { readonly publicUrl: string }
+export type AppConfig = Readonly<z.infer<typeof envSchema>> & {
+  readonly publicUrl: string
+  /** Resolved upload folder (UPLOAD_DIR, else <DATA_DIR or .data>/uploads). */
+  readonly uploadDir: string
+  /** Resolved signing-key folder (KEY_DIR, else <DATA_DIR or .data>/keys). */
+  readonly keyDir: string
+  /** Resolved permit PDF folder (PERMIT_DIR, else <DATA_DIR or .data>/permits). */
+  readonly permitDir: string
+  /** PUBLIC_HOLIDAYS as a set, for the working-day functions. */
+  readonly publicHolidays: ReadonlySet<string>
+}
 
 /** Parse an environment; exported so tests can build a config without touching process.env. */
 export function parseConfig(env: Record<string, string | undefined>): AppConfig {
@@ -56,7 +128,14 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     throw new Error(`Invalid configuration:\n${lines.join('\n')}`)
   }
   const c = parsed.data
-  return Object.freeze({ ...c, publicUrl: c.PUBLIC_URL ?? `http://${c.HOST}:${c.PORT}` })
+  return Object.freeze({
+    ...c,
+    publicUrl: c.PUBLIC_URL ?? `http://${c.HOST}:${c.PORT}`,
+    uploadDir: c.UPLOAD_DIR ?? `${c.DATA_DIR ?? '.data'}/uploads`,
+    keyDir: c.KEY_DIR ?? `${c.DATA_DIR ?? '.data'}/keys`,
+    permitDir: c.PERMIT_DIR ?? `${c.DATA_DIR ?? '.data'}/permits`,
+    publicHolidays: new Set(c.PUBLIC_HOLIDAYS),
+  })
 }
 
 let current: AppConfig | undefined

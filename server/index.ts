@@ -4,6 +4,8 @@ import { config } from './config.ts'
 import { createSequelize } from './db/sequelize.ts'
 import { createMigrator } from './db/migrate.ts'
 import { logger, setLogLevel } from './logger.ts'
+import { startOutboxWorker } from './mail/outbox-worker.ts'
+import { failInterruptedImports } from './services/import/import-jobs.ts'
 
 /**
  * The API and client server process. Runs pending migrations, then listens. SIGINT/SIGTERM close
@@ -15,6 +17,10 @@ async function main(): Promise<void> {
   const sequelize = createSequelize(cfg)
   await createMigrator(sequelize, cfg.PROJECTED_EPSG).up()
   const { app, close } = createApp(cfg, sequelize)
+  const interrupted = await failInterruptedImports()
+  if (interrupted)
+    logger.warn({ interrupted }, 'network imports cut off by the last stop were marked failed')
+  const stopOutbox = startOutboxWorker(sequelize, cfg)
   const server = createServer(app)
   server.listen(cfg.PORT, cfg.HOST, () => {
     logger.info({ url: cfg.publicUrl }, 'Trenchward is listening')
@@ -22,6 +28,7 @@ async function main(): Promise<void> {
   const stop = () => {
     logger.info('shutting down')
     server.close(() => {
+      stopOutbox()
       close()
       sequelize.close().finally(() => process.exit(0))
     })

@@ -24,7 +24,8 @@ export function geoJsonToGridWkt(
     case 'Point':
       return `POINT(${xy(t, g.coordinates)})`
     case 'MultiPoint':
-      return `MULTIPOINT(${g.coordinates.map((p) => `(${xy(t, p)})`).join(', ')})`
+      // MariaDB 10.11 reads only the unparenthesised point list.
+      return `MULTIPOINT(${g.coordinates.map((p) => xy(t, p)).join(', ')})`
     case 'LineString':
       return `LINESTRING(${g.coordinates.map((p) => xy(t, p)).join(', ')})`
     case 'Polygon':

@@ -24,3 +24,24 @@ export const signInLimiter = rateLimit({
     })
   },
 })
+
+/**
+ * The public permit check: 60 look-ups a minute per client address, enough for an inspector
+ * scanning a site, too few to walk the code space.
+ */
+export const verifyLimiter = rateLimit({
+  windowMs: 60_000,
+  limit: 60,
+  standardHeaders: 'draft-8',
+  legacyHeaders: false,
+  keyGenerator: (req) => ipKeyGenerator(req.ip ?? ''),
+  handler: (req, res) => {
+    res.status(429).json({
+      error: {
+        code: ErrorCode.RATE_LIMITED,
+        message: 'Too many checks from your address. Wait a minute and try again.',
+        requestId: String(req.id),
+      },
+    })
+  },
+})

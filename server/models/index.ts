@@ -1,11 +1,28 @@
 import type { Sequelize } from 'sequelize'
 import { Activity } from './activity.ts'
 import { Application } from './application.ts'
+import { Assessment } from './assessment.ts'
 import { AuditEvent } from './audit-event.ts'
+import { ImportMapping } from './import-mapping.ts'
+import { NetworkImport } from './network-import.ts'
 import { Organisation } from './organisation.ts'
+import { OutboxMail } from './outbox-mail.ts'
+import { PipeSegment } from './pipe-segment.ts'
 import { User } from './user.ts'
 
-export { Activity, Application, AuditEvent, Organisation, User }
+export {
+  Activity,
+  Application,
+  Assessment,
+  AuditEvent,
+  ImportMapping,
+  NetworkImport,
+  Organisation,
+  OutboxMail,
+  PipeSegment,
+  User,
+}
+
 
 let initialised: Sequelize | undefined
 
@@ -15,14 +32,27 @@ export function initModels(sequelize: Sequelize): void {
   Organisation.initModel(sequelize)
   User.initModel(sequelize)
   AuditEvent.initModel(sequelize)
+  PipeSegment.initModel(sequelize)
+  ImportMapping.initModel(sequelize)
+  NetworkImport.initModel(sequelize)
   Application.initModel(sequelize)
   Activity.initModel(sequelize)
+  Assessment.initModel(sequelize)
+  OutboxMail.initModel(sequelize)
   Organisation.hasMany(User, { foreignKey: 'organisationId', as: 'users' })
   User.belongsTo(Organisation, { foreignKey: 'organisationId', as: 'organisation' })
   AuditEvent.belongsTo(User, { foreignKey: 'actorUserId', as: 'actor' })
+  PipeSegment.belongsTo(Organisation, { foreignKey: 'ownerOrganisationId', as: 'owner' })
+  NetworkImport.belongsTo(Organisation, { foreignKey: 'ownerOrganisationId', as: 'owner' })
   Application.hasMany(Activity, { foreignKey: 'applicationId', as: 'activities' })
   Activity.belongsTo(Application, { foreignKey: 'applicationId', as: 'application' })
-  Application.belongsTo(Organisation, { foreignKey: 'applicantOrganisationId', as: 'applicantOrganisation' })
+  Application.belongsTo(Organisation, {
+    foreignKey: 'applicantOrganisationId',
+    as: 'applicantOrganisation',
+  })
   Application.belongsTo(User, { foreignKey: 'createdByUserId', as: 'createdBy' })
+  Application.hasMany(Assessment, { foreignKey: 'applicationId', as: 'assessments' })
+  Assessment.belongsTo(Application, { foreignKey: 'applicationId', as: 'application' })
+  Assessment.belongsTo(PipeSegment, { foreignKey: 'pipeSegmentId', as: 'segment' })
   initialised = sequelize
 }

@@ -11,6 +11,7 @@ import { allow } from '../middleware/access.ts'
 import {
   createDraft,
   getApplication,
+  getScreening,
   listApplications,
   submitApplication,
   updateDraft,
@@ -41,6 +42,10 @@ export function applicationsRouter(sequelize: Sequelize): Router {
 
   router.get('/:id', readers, async (req, res) => {
     res.json(await getApplication(req.user!, idParam.parse(req.params).id))
+  })
+
+  router.get('/:id/screening', readers, async (req, res) => {
+    res.json(await getScreening(sequelize, req.user!, idParam.parse(req.params).id))
   })
 
   router.put('/:id', applicantOnly, async (req, res) => {

@@ -19,6 +19,9 @@ import { conflict, domainRule, forbidden, notFound, validationFailed } from '../
 import { geoJsonToGridWkt } from '../geo/wkt.ts'
 import { Activity, Application, Organisation, User } from '../models/index.ts'
 import { recordAudit } from './audit.ts'
+import { screenApplication } from './screening.ts'
+import { applicantScreening } from './screening-view.ts'
+import type { ApplicationScreeningDto } from '../../shared/types/screening.ts'
 
 const include = [
   { model: Activity, as: 'activities' },
@@ -257,14 +260,13 @@ export const applicationReference = (id: number, submittedAt: Date) =>
 /**
  * Submit a complete draft: the whole form is checked (dates not in the past, end after start,
  * at least one activity), the reference is assigned and the status moves to `submitted`.
- * `afterSubmit` runs inside the same transaction (the screening), so a failure leaves a draft.
+ * The screening runs inside the same transaction, so a failure leaves the draft as it was.
  */
 export async function submitApplication(
   sequelize: Sequelize,
   user: User,
   id: number,
   expectedVersion: number,
-  afterSubmit?: (a: Application, transaction: Transaction) => Promise<void>,
   now = new Date(),
 ): Promise<ApplicationDto> {
   if (user.role !== 'applicant') throw forbidden()
@@ -296,7 +298,7 @@ export async function submitApplication(
     a.submittedAt = now
     a.version = a.version + 1
     await a.save({ transaction })
-    if (afterSubmit) await afterSubmit(a, transaction)
+    const screening = await screenApplication(sequelize, a.id, parsed.data.activities, transaction)
     await recordAudit(
       {
         actorUserId: user.id,
@@ -338,4 +340,15 @@ export async function withdrawApplication(
     )
   })
   return toApplicationDto(await loadForUser(id, user))
+}
+
+/** The screening result of an application as the reader may see it. */
+export async function getScreening(
+  sequelize: Sequelize,
+  user: User,
+  id: number,
+): Promise<ApplicationScreeningDto> {
+  const a = await loadForUser(id, user)
+  const activities = toApplicationDto(a).activities.map(({ id: _id, ...rest }) => rest)
+  return applicantScreening(sequelize, a.id, activities, a.submittedAt)
 }

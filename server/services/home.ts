@@ -1,5 +1,5 @@
 import { Op } from 'sequelize'
-import { Organisation, User } from '../models/index.ts'
+import { Application, Assessment, Organisation, PipeSegment, User } from '../models/index.ts'
 
 /** One line of a user's "needs my attention today" list. */
 export interface HomeItem {
@@ -33,23 +33,59 @@ export async function homeItemsFor(user: User): Promise<HomeItem[]> {
       ]
     case 'applicant':
       return [
-        { key: 'drafts', label: 'Draft applications', count: 0, to: '/applications' },
-        { key: 'questions', label: 'Questions from network owners', count: 0, to: '/applications' },
+        {
+          key: 'drafts',
+          label: 'Draft applications',
+          count: await Application.count({ where: { applicantOrganisationId: user.organisationId, status: 'draft' } }),
+          to: '/my-applications',
+        },
+        {
+          key: 'in-progress',
+          label: 'Applications with the owners or the permit office',
+          count: await Application.count({
+            where: {
+              applicantOrganisationId: user.organisationId,
+              status: { [Op.in]: ['submitted', 'with_owners', 'ready_for_decision'] },
+            },
+          }),
+          to: '/my-applications',
+        },
       ]
     case 'asset_engineer':
       return [
-        { key: 'reviews-due', label: 'Reviews due', count: 0, to: '/reviews' },
+        {
+          key: 'applications-near-pipes',
+          label: 'Submitted applications that reach your pipes',
+          count: await Assessment.count({
+            distinct: true,
+            col: 'application_id',
+            where: { ownerOrganisationId: user.organisationId },
+          }),
+          to: '/reviews',
+        },
         {
           key: 'over-capacity',
           label: 'Pipes over capacity without works',
-          count: 0,
+          count: await PipeSegment.count({
+            where: { ownerOrganisationId: user.organisationId, baselineOverCapacity: true },
+          }),
           to: '/network',
         },
       ]
     case 'permit_officer':
       return [
-        { key: 'ready', label: 'Ready for decision', count: 0, to: '/officer/applications' },
-        { key: 'overdue', label: 'Owner reviews overdue', count: 0, to: '/officer/applications' },
+        {
+          key: 'submitted',
+          label: 'New applications',
+          count: await Application.count({ where: { status: 'submitted' } }),
+          to: '/applications',
+        },
+        {
+          key: 'ready',
+          label: 'Ready for decision',
+          count: await Application.count({ where: { status: 'ready_for_decision' } }),
+          to: '/applications',
+        },
       ]
   }
 }

@@ -129,7 +129,7 @@ describe('POST /api/auth/sign-in', () => {
       body: JSON.stringify({ email: u.email, password: TEST_PASSWORD }),
     })
     expect(res.status).toBe(403)
-    expect((await res.json()).error.code).toBe('FORBIDDEN')
+    expect(((await res.json()) as { error: { code: string } }).error.code).toBe('FORBIDDEN')
   })
 
   it('when the user is deactivated, then the right password is refused', async () => {
