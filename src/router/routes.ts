@@ -47,26 +47,27 @@ export const routes: RouteRecordRaw[] = [
       {
         path: 'my-applications',
         name: 'my-applications',
-        component: BeingBuiltPage,
-        meta: {
-          title: 'My applications',
-          navIcon: matFolderOpen,
-          roles: ['applicant'],
-          summary:
-            'Every application your organisation has made, with its status, the answer of each pipe owner and the permit once it is granted.',
-        },
+        component: () => import('../pages/MyApplicationsPage.vue'),
+        meta: { title: 'My applications', navIcon: matFolderOpen, roles: ['applicant'] },
       },
       {
         path: 'new-application',
         name: 'new-application',
-        component: BeingBuiltPage,
-        meta: {
-          title: 'New application',
-          navIcon: matAddLocationAlt,
-          roles: ['applicant'],
-          summary:
-            'Draw your works on the town map, describe each excavation, crane set-up or stockpile, and see the check on the pipes below at once.',
-        },
+        component: () => import('../pages/ApplicationFormPage.vue'),
+        meta: { title: 'New application', navIcon: matAddLocationAlt, roles: ['applicant'] },
+      },
+      {
+        // The same form as a new application, for a saved draft.
+        path: 'applications/:id(\\d+)/edit',
+        name: 'application-edit',
+        component: () => import('../pages/ApplicationFormPage.vue'),
+        meta: { title: 'Draft application', roles: ['applicant'] },
+      },
+      {
+        path: 'applications/:id(\\d+)',
+        name: 'application-detail',
+        component: () => import('../pages/ApplicationPage.vue'),
+        meta: { title: 'Application', roles: ['applicant', 'permit_officer', 'admin'] },
       },
 
       // Network engineer
@@ -85,7 +86,7 @@ export const routes: RouteRecordRaw[] = [
       {
         path: 'network',
         name: 'network',
-        component: BeingBuiltPage,
+        component: () => import('../pages/NetworkPage.vue'),
         meta: {
           title: 'Network',
           navIcon: matLayers,
@@ -93,6 +94,18 @@ export const routes: RouteRecordRaw[] = [
           summary:
             'Your pipes on the map and in a table, with their design data, baseline checks and imports from GeoJSON or CSV.',
         },
+      },
+      {
+        path: 'network/import',
+        name: 'network-import',
+        component: () => import('../pages/NetworkImportPage.vue'),
+        meta: { title: 'Import pipes', roles: ['asset_engineer'] },
+      },
+      {
+        path: 'network/pipes/:id(\\d+)',
+        name: 'pipe-detail',
+        component: () => import('../pages/PipeDetailPage.vue'),
+        meta: { title: 'Pipe', roles: ['asset_engineer'] },
       },
       {
         path: 'condition-library',

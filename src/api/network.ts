@@ -1,0 +1,180 @@
+import type { FeatureCollection, LineString } from 'geojson'
+import { ErrorCode } from '../../shared/errors.ts'
+import type { ImportMapping } from '../../shared/schemas/import-mapping.ts'
+import type { PipeSegmentEdit } from '../../shared/schemas/pipe-segment.ts'
+import type {
+  ImportFormat,
+  ImportPreviewDto,
+  ImportReportPage,
+  NetworkImportDto,
+  PipeMedium,
+  PipeSegmentDto,
+  PipeSegmentPage,
+} from '../../shared/types/network.ts'
+import { config } from '../config.ts'
+import { ApiError } from './api-error.ts'
+import { CLIENT_HEADER, http, toApiError } from './http.ts'
+
+/** Filters, sort and paging of the segment table (GET /api/network/segments). */
+export interface SegmentListParams {
+  page: number
+  pageSize: number
+  sort?: string
+  order?: 'asc' | 'desc'
+  medium?: PipeMedium | null
+  material?: string | null
+  overCapacity?: boolean | null
+  q?: string | null
+}
+
+export function fetchSegments(params: SegmentListParams): Promise<PipeSegmentPage> {
+  return http.get<PipeSegmentPage>('/network/segments', {
+    page: params.page,
+    pageSize: params.pageSize,
+    sort: params.sort,
+    order: params.order,
+    medium: params.medium,
+    material: params.material,
+    overCapacity: params.overCapacity === null ? undefined : params.overCapacity,
+    q: params.q?.trim() || undefined,
+  })
+}
+
+/** How many of the owner's segments are over capacity without any works. */
+export async function fetchOverCapacityCount(): Promise<number> {
+  const page = await http.get<PipeSegmentPage>('/network/segments', {
+    overCapacity: true,
+    page: 1,
+    pageSize: 1,
+  })
+  return page.total
+}
+
+export function fetchSegment(id: number): Promise<PipeSegmentDto> {
+  return http.get<PipeSegmentDto>(`/network/segments/${id}`)
+}
+
+export function updateSegment(id: number, edit: PipeSegmentEdit): Promise<PipeSegmentDto> {
+  return http.patch<PipeSegmentDto>(`/network/segments/${id}`, edit)
+}
+
+/** Properties of a feature in the network export (design data plus these). */
+export interface ExportedSegmentProperties {
+  segmentId: number
+  ownerRef: string
+  medium: PipeMedium
+  material: string
+  length_m: number
+  version: number
+  baselineVerdict: string | null
+  baselineUtilisation: number | null
+  baselineOverCapacity: boolean
+  [field: string]: unknown
+}
+
+export type NetworkCollection = FeatureCollection<LineString, ExportedSegmentProperties>
+
+/** The address of the GeoJSON export, for a download link. */
+export function exportUrl(medium?: PipeMedium | null): string {
+  const base = `${config.apiBase}/network/export`
+  return medium ? `${base}?medium=${encodeURIComponent(medium)}` : base
+}
+
+/** The owner's whole network as GeoJSON (the export), for the network map. */
+export function fetchNetworkGeoJson(signal?: AbortSignal): Promise<NetworkCollection> {
+  return http.get<NetworkCollection>('/network/export', undefined, signal)
+}
+
+export function fetchImportMapping(): Promise<ImportMapping> {
+  return http.get<ImportMapping>('/network/mapping')
+}
+
+export function saveImportMapping(mapping: ImportMapping): Promise<ImportMapping> {
+  return http.put<ImportMapping>('/network/mapping', mapping)
+}
+
+export function fetchImport(id: number): Promise<NetworkImportDto> {
+  return http.get<NetworkImportDto>(`/network/imports/${id}`)
+}
+
+export function fetchImportPreview(id: number): Promise<ImportPreviewDto> {
+  return http.get<ImportPreviewDto>(`/network/imports/${id}/preview`)
+}
+
+export function startImportValidation(id: number): Promise<NetworkImportDto> {
+  return http.post<NetworkImportDto>(`/network/imports/${id}/validate`, {})
+}
+
+export function fetchImportReport(
+  id: number,
+  page: number,
+  pageSize: number,
+): Promise<ImportReportPage> {
+  return http.get<ImportReportPage>(`/network/imports/${id}/report`, { page, pageSize })
+}
+
+export function startImportCommit(id: number, skipInvalid: boolean): Promise<NetworkImportDto> {
+  return http.post<NetworkImportDto>(`/network/imports/${id}/commit`, { skipInvalid })
+}
+
+/** The import format a file name suggests, or null when the server should be told. */
+export function formatOfFilename(name: string): ImportFormat | null {
+  const lower = name.toLowerCase()
+  if (lower.endsWith('.geojson') || lower.endsWith('.json')) return 'geojson'
+  if (lower.endsWith('.csv') || lower.endsWith('.txt')) return 'csv'
+  return null
+}
+
+export interface UploadHandle {
+  promise: Promise<NetworkImportDto>
+  abort: () => void
+}
+
+/**
+ * Uploads an import file as multipart (field `file`, and `format` when known). Uses
+ * XMLHttpRequest, because fetch reports no upload progress; the CSRF header and the error
+ * mapping are those of http.ts. `onProgress` gets the fraction sent, 0 to 1.
+ */
+export function uploadImportFile(
+  file: File,
+  onProgress: (fraction: number) => void,
+  format: ImportFormat | null = formatOfFilename(file.name),
+): UploadHandle {
+  const xhr = new XMLHttpRequest()
+  const promise = new Promise<NetworkImportDto>((resolve, reject) => {
+    const body = new FormData()
+    // Fields before the file, so the server has them when the file stream starts.
+    if (format) body.append('format', format)
+    body.append('file', file, file.name)
+    xhr.open('POST', `${config.apiBase}/network/imports`)
+    xhr.setRequestHeader(CLIENT_HEADER, '1')
+    xhr.setRequestHeader('Accept', 'application/json')
+    xhr.withCredentials = true
+    xhr.upload.onprogress = (event) => {
+      if (event.lengthComputable && event.total > 0) onProgress(event.loaded / event.total)
+    }
+    xhr.onload = () => {
+      let parsed: unknown
+      try {
+        parsed = xhr.responseText ? (JSON.parse(xhr.responseText) as unknown) : undefined
+      } catch {
+        parsed = undefined
+      }
+      if (xhr.status >= 200 && xhr.status < 300) {
+        onProgress(1)
+        resolve(parsed as NetworkImportDto)
+      } else reject(toApiError(xhr.status, parsed, xhr.statusText))
+    }
+    xhr.onerror = () =>
+      reject(
+        new ApiError(
+          0,
+          ErrorCode.NETWORK,
+          'The upload was cut off. Check your connection and try again.',
+        ),
+      )
+    xhr.onabort = () => reject(new DOMException('The upload was cancelled', 'AbortError'))
+    xhr.send(body)
+  })
+  return { promise, abort: () => xhr.abort() }
+}

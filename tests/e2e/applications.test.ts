@@ -1,0 +1,161 @@
+import { mkdir, mkdtemp, rm } from 'node:fs/promises'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
+import { chromium, type BrowserContext, type Page } from 'playwright-core'
+
+// The same headless chromium flags as sign-in.test.ts (no outside hosts in the closed network).
+const CHROMIUM_ARGS = [
+  '--no-sandbox',
+  '--headless=new',
+  '--disable-gpu',
+  '--disable-quic',
+  '--no-first-run',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+]
+const SCREENSHOT_DIR = join(process.cwd(), 'tests', 'artifacts', 'screenshots')
+
+const baseUrl = inject('baseUrl').replace(/\/$/, '')
+const applicant = inject('e2eUsers').find((u) => u.role === 'applicant')!
+
+let context: BrowserContext
+let userDataDir: string
+
+beforeAll(async () => {
+  userDataDir = await mkdtemp(join(tmpdir(), 'trenchward-chromium-'))
+  await mkdir(SCREENSHOT_DIR, { recursive: true })
+  context = await chromium.launchPersistentContext(userDataDir, {
+    executablePath: '/usr/bin/chromium',
+    args: CHROMIUM_ARGS,
+    viewport: { width: 1440, height: 900 },
+    locale: 'en-GB',
+  })
+})
+
+afterAll(async () => {
+  await context?.close()
+  if (userDataDir) await rm(userDataDir, { recursive: true, force: true })
+})
+
+async function signIn(page: Page): Promise<void> {
+  await page.goto(`${baseUrl}/sign-in`, { waitUntil: 'networkidle' })
+  await page.locator('input[data-testid="sign-in-email"]').fill(applicant.email)
+  await page.locator('input[data-testid="sign-in-password"]').fill(applicant.password)
+  await page.locator('[data-testid="sign-in-submit"]').click()
+  await page.waitForURL((url) => url.pathname === '/')
+}
+
+/** A date some days from today as yyyy-mm-dd. */
+function isoInDays(days: number): string {
+  return new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10)
+}
+
+describe('applications in a real browser', () => {
+  it('creates an application, draws an excavation on the map, submits it and sees the check', async () => {
+    await context.clearCookies()
+    const page = await context.newPage()
+    try {
+      await signIn(page)
+      await page.goto(`${baseUrl}/new-application`, { waitUntil: 'networkidle' })
+      const canvas = page.locator('[data-testid="town-map"] canvas').first()
+      await canvas.waitFor({ timeout: 15_000 })
+
+      // 1) The works
+      await page
+        .locator('input[data-testid="field-title"]')
+        .fill('New water connection at Test Street')
+      await page.locator('input[data-testid="field-siteAddress"]').fill('Test Street 12, Wendmoor')
+      await page.locator('input[data-testid="field-startsOn"]').fill(isoInDays(10))
+      await page.locator('input[data-testid="field-endsOn"]').fill(isoInDays(14))
+      await page.locator('input[data-testid="field-contactName"]').fill('Alex Applicant')
+      await page.locator('input[data-testid="field-contactPhone"]').fill('+49 5121 123456')
+      await page
+        .locator('textarea[data-testid="field-description"]')
+        .fill('Dig a pit for a new house connection and backfill the same day.')
+      // The first save creates the draft and gives the page the draft's own address.
+      await page.waitForURL(/\/applications\/\d+\/edit$/, { timeout: 15_000 })
+
+      // 2) An excavation drawn by clicking its corners on the map canvas
+      await page.locator('[data-testid="to-activities"]').click()
+      await page.locator('[data-testid="add-excavation"]').click()
+      await page.locator('[data-testid="draw-hint"]').waitFor()
+      const box = await canvas.boundingBox()
+      if (!box) throw new Error('map canvas has no size')
+      const cx = box.x + box.width / 2
+      const cy = box.y + box.height / 2
+      const corners: [number, number][] = [
+        [cx - 40, cy - 25],
+        [cx + 40, cy - 25],
+        [cx + 40, cy + 25],
+      ]
+      for (const [x, y] of corners) {
+        await page.mouse.click(x, y)
+        await page.waitForTimeout(350)
+      }
+      await page.mouse.dblclick(cx - 40, cy + 25)
+      const where = page.locator('[data-testid="activity-0"] [data-testid="activity-where"]')
+      await expect
+        .poll(async () => where.textContent(), { timeout: 10_000 })
+        .toMatch(/4 corners · [\d.]+ m²/)
+
+      await page.locator('input[data-testid="field-depth_m"]').fill('1.6')
+      await page.locator('[data-testid="field-support"]').click()
+      await page.locator('.q-menu .q-item', { hasText: 'Trench box' }).click()
+      await page
+        .locator('[data-testid="reach-list"]')
+        .getByText(/Looks [\d.]+ m around it/)
+        .waitFor()
+      await expect
+        .poll(async () => page.locator('[data-testid="save-status"]').textContent(), {
+          timeout: 10_000,
+        })
+        .toMatch(/Saved/)
+      await page.screenshot({ path: join(SCREENSHOT_DIR, 'applications-form-drawn.png') })
+
+      // 3) Check and submit
+      await page.locator('[data-testid="to-review"]').click()
+      await page.screenshot({ path: join(SCREENSHOT_DIR, 'applications-form-review.png') })
+      await page.locator('[data-testid="submit-application"]').click()
+      await page.waitForURL(/\/applications\/\d+$/, { timeout: 20_000 })
+
+      const result = page.locator('[data-testid="screening-result"]')
+      await result.waitFor()
+      await page.locator('[data-testid="screening-headline"]').waitFor({ timeout: 15_000 })
+      // Other browser tests may have imported pipes near the test streets, so either answer is
+      // right; when pipes are reached, each affected owner shows its pipes with a verdict.
+      const headline =
+        (await page.locator('[data-testid="screening-headline"]').textContent()) ?? ''
+      expect(headline).toMatch(/No pipe owner is affected|\d+ pipes? of \d+ owners? within reach/)
+      if (!headline.includes('No pipe owner')) {
+        await result.locator('[data-testid^="affected-pipe-"] [data-verdict]').first().waitFor()
+      }
+      expect(await page.locator('[data-testid="application-status"]').textContent()).not.toContain(
+        'Draft',
+      )
+      await expect(result.getByRole('note').isVisible()).resolves.toBe(true)
+      await page.waitForLoadState('networkidle')
+      // Let the map finish fitting the view to the works and their reach.
+      await page.waitForTimeout(1000)
+      await page.screenshot({ path: join(SCREENSHOT_DIR, 'applications-result.png') })
+      await page.emulateMedia({ media: 'print' })
+      await page.screenshot({
+        path: join(SCREENSHOT_DIR, 'applications-print.png'),
+        fullPage: true,
+      })
+      await page.emulateMedia({ media: 'screen' })
+
+      // My applications lists it with its status in words.
+      await page.goto(`${baseUrl}/my-applications`, { waitUntil: 'networkidle' })
+      await page
+        .locator('[data-testid="applications-table"]')
+        .getByText('New water connection at Test Street')
+        .first()
+        .waitFor()
+      await page.screenshot({ path: join(SCREENSHOT_DIR, 'applications-list.png') })
+    } finally {
+      await page.close()
+    }
+  })
+})
