@@ -16,10 +16,17 @@ import { apiNotFound, errorHandler } from './middleware/error-handler.ts'
 import { initModels } from './models/index.ts'
 import { adminRouter } from './routes/admin.ts'
 import { applicationsRouter } from './routes/applications.ts'
+import { attachmentsRouter } from './routes/attachments.ts'
 import { authRouter } from './routes/auth.ts'
 import { homeRouter } from './routes/home.ts'
 import { mapRouter } from './routes/map.ts'
 import { networkRouter } from './routes/network.ts'
+import { applicationReviewsRouter } from './routes/application-reviews.ts'
+import { conditionTemplatesRouter } from './routes/condition-templates.ts'
+import { permitOfficeRouter } from './routes/permit-office.ts'
+import { permitsRouter } from './routes/permits.ts'
+import { reviewsRouter } from './routes/reviews.ts'
+import { verifyRouter } from './routes/verify.ts'
 
 export interface CreatedApp {
   app: express.Express
@@ -97,7 +104,14 @@ export function createApp(cfg: AppConfig, sequelize: Sequelize): CreatedApp {
   api.use('/auth', authRouter)
   api.use('/home', homeRouter)
   api.use('/admin', adminRouter)
+  api.use('/applications/:id/attachments', attachmentsRouter)
   api.use('/applications', applicationsRouter(sequelize))
+  api.use('/applications', applicationReviewsRouter(sequelize))
+  api.use('/reviews', reviewsRouter(sequelize))
+  api.use('/condition-templates', conditionTemplatesRouter)
+  api.use('/permit-office', permitOfficeRouter(sequelize))
+  api.use('/permits', permitsRouter(sequelize))
+  api.use('/verify', verifyRouter)
   api.use(mapRouter(sequelize))
   api.use('/network', networkRouter(sequelize))
   api.use(apiNotFound)

@@ -41,6 +41,8 @@ const envSchema = z.object({
   /** Where uploaded import files are kept; default <DATA_DIR or .data>/uploads. */
   UPLOAD_DIR: z.string().optional(),
   /** Largest accepted import upload, in megabytes. */
+  /** Largest document an applicant may attach, in megabytes. */
+  ATTACHMENT_MAX_MB: z.coerce.number().positive().max(200).default(25),
   IMPORT_MAX_UPLOAD_MB: z.coerce.number().positive().max(4096).default(512),
   /**
    * The area pipes may lie in, as minLon,minLat,maxLon,maxLat (WGS84). A vertex outside it is

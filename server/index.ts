@@ -5,6 +5,7 @@ import { createSequelize } from './db/sequelize.ts'
 import { createMigrator } from './db/migrate.ts'
 import { logger, setLogLevel } from './logger.ts'
 import { startOutboxWorker } from './mail/outbox-worker.ts'
+import { startScheduler } from './jobs/scheduler.ts'
 import { failInterruptedImports } from './services/import/import-jobs.ts'
 
 /**
@@ -21,6 +22,7 @@ async function main(): Promise<void> {
   if (interrupted)
     logger.warn({ interrupted }, 'network imports cut off by the last stop were marked failed')
   const stopOutbox = startOutboxWorker(sequelize, cfg)
+  const stopScheduler = startScheduler(sequelize, cfg)
   const server = createServer(app)
   server.listen(cfg.PORT, cfg.HOST, () => {
     logger.info({ url: cfg.publicUrl }, 'Trenchward is listening')
@@ -29,6 +31,7 @@ async function main(): Promise<void> {
     logger.info('shutting down')
     server.close(() => {
       stopOutbox()
+      stopScheduler()
       close()
       sequelize.close().finally(() => process.exit(0))
     })

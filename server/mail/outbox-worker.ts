@@ -13,7 +13,8 @@ export const MAX_ATTEMPTS = 12
 export const LEASE_MS = 60_000
 
 /** Wait before attempt n+1 after n failures: 30 s, 1, 2, 4 … minutes, at most one hour. */
-export const retryDelay_ms = (attempts: number) => Math.min(30_000 * 2 ** Math.max(0, attempts - 1), 3_600_000)
+export const retryDelay_ms = (attempts: number) =>
+  Math.min(30_000 * 2 ** Math.max(0, attempts - 1), 3_600_000)
 
 export function createMailTransport(cfg: AppConfig): Transporter {
   return nodemailer.createTransport({
@@ -43,9 +44,15 @@ export async function runOutboxOnce(
     `UPDATE outbox_mails SET locked_by = ?, locked_until = ?
       WHERE status = 'pending' AND next_attempt_at <= ? AND (locked_until IS NULL OR locked_until < ?)
       ORDER BY id LIMIT ?`,
-    { replacements: [worker, new Date(now.getTime() + LEASE_MS), now, now, batch], type: QueryTypes.UPDATE },
+    {
+      replacements: [worker, new Date(now.getTime() + LEASE_MS), now, now, batch],
+      type: QueryTypes.UPDATE,
+    },
   )
-  const mails = await OutboxMail.findAll({ where: { lockedBy: worker, status: 'pending' }, order: [['id', 'ASC']] })
+  const mails = await OutboxMail.findAll({
+    where: { lockedBy: worker, status: 'pending' },
+    order: [['id', 'ASC']],
+  })
   let sent = 0
   let failed = 0
   for (const m of mails) {
@@ -56,9 +63,20 @@ export async function runOutboxOnce(
         subject: m.subject,
         text: m.textBody,
         html: m.htmlBody ?? undefined,
-        attachments: (m.attachments ?? []).map((a) => ({ filename: a.filename, path: a.path, contentType: a.contentType })),
+        attachments: (m.attachments ?? []).map((a) => ({
+          filename: a.filename,
+          path: a.path,
+          contentType: a.contentType,
+        })),
       })
-      await m.update({ status: 'sent', sentAt: new Date(), attempts: m.attempts + 1, lockedBy: null, lockedUntil: null, lastError: null })
+      await m.update({
+        status: 'sent',
+        sentAt: new Date(),
+        attempts: m.attempts + 1,
+        lockedBy: null,
+        lockedUntil: null,
+        lastError: null,
+      })
       sent++
     } catch (err) {
       const attempts = m.attempts + 1
@@ -71,14 +89,21 @@ export async function runOutboxOnce(
         lastError: String((err as Error).message ?? err).slice(0, 1000),
       })
       failed++
-      logger.warn({ mailId: m.id, attempts, err: (err as Error).message }, 'mail not sent; will retry')
+      logger.warn(
+        { mailId: m.id, attempts, err: (err as Error).message },
+        'mail not sent; will retry',
+      )
     }
   }
   return { sent, failed }
 }
 
 /** Poll the outbox every `interval_ms` until stopped. */
-export function startOutboxWorker(sequelize: Sequelize, cfg: AppConfig, interval_ms = 5_000): () => void {
+export function startOutboxWorker(
+  sequelize: Sequelize,
+  cfg: AppConfig,
+  interval_ms = 5_000,
+): () => void {
   const transport = createMailTransport(cfg)
   let running = false
   const timer = setInterval(() => {
@@ -96,4 +121,3 @@ export function startOutboxWorker(sequelize: Sequelize, cfg: AppConfig, interval
     transport.close()
   }
 }
-

@@ -45,3 +45,21 @@ export const verifyLimiter = rateLimit({
     })
   },
 })
+
+/** Uploads per client address: 60 in 10 minutes, enough for a person, not for a flood. */
+export const uploadLimiter = rateLimit({
+  windowMs: 10 * 60_000,
+  limit: 60,
+  standardHeaders: 'draft-8',
+  legacyHeaders: false,
+  keyGenerator: (req) => ipKeyGenerator(req.ip ?? ''),
+  handler: (req, res) => {
+    res.status(429).json({
+      error: {
+        code: ErrorCode.RATE_LIMITED,
+        message: 'Too many uploads in a short time. Wait a few minutes and try again.',
+        requestId: String(req.id),
+      },
+    })
+  },
+})

@@ -1,9 +1,17 @@
 import { DataTypes, Model } from 'sequelize'
-import type { CreationOptional, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize'
+import type {
+  CreationOptional,
+  InferAttributes,
+  InferCreationAttributes,
+  Sequelize,
+} from 'sequelize'
 import type { AssessmentInput, AssessmentResult, Verdict } from '../../shared/statics/types.ts'
 
 /** The screening result of one application for one pipe segment. */
-export class Assessment extends Model<InferAttributes<Assessment>, InferCreationAttributes<Assessment>> {
+export class Assessment extends Model<
+  InferAttributes<Assessment>,
+  InferCreationAttributes<Assessment>
+> {
   declare id: CreationOptional<number>
   declare applicationId: number
   declare pipeSegmentId: number

@@ -1,6 +1,7 @@
 import type { Sequelize } from 'sequelize'
 import { Activity } from './activity.ts'
 import { Application } from './application.ts'
+import { ApplicationAttachment } from './application-attachment.ts'
 import { Assessment } from './assessment.ts'
 import { AuditEvent } from './audit-event.ts'
 import { ImportMapping } from './import-mapping.ts'
@@ -9,10 +10,17 @@ import { Organisation } from './organisation.ts'
 import { OutboxMail } from './outbox-mail.ts'
 import { PipeSegment } from './pipe-segment.ts'
 import { User } from './user.ts'
+import { ConditionTemplate } from './condition-template.ts'
+import { OwnerReview } from './owner-review.ts'
+import { Permit } from './permit.ts'
+import { ReviewDecision } from './review-decision.ts'
+import { ReviewMessage } from './review-message.ts'
+import { SegmentRerun } from './segment-rerun.ts'
 
 export {
   Activity,
   Application,
+  ApplicationAttachment,
   Assessment,
   AuditEvent,
   ImportMapping,
@@ -23,6 +31,7 @@ export {
   User,
 }
 
+export { ConditionTemplate, OwnerReview, Permit, ReviewDecision, ReviewMessage, SegmentRerun }
 
 let initialised: Sequelize | undefined
 
@@ -37,6 +46,7 @@ export function initModels(sequelize: Sequelize): void {
   NetworkImport.initModel(sequelize)
   Application.initModel(sequelize)
   Activity.initModel(sequelize)
+  ApplicationAttachment.initModel(sequelize)
   Assessment.initModel(sequelize)
   OutboxMail.initModel(sequelize)
   Organisation.hasMany(User, { foreignKey: 'organisationId', as: 'users' })
@@ -54,5 +64,18 @@ export function initModels(sequelize: Sequelize): void {
   Application.hasMany(Assessment, { foreignKey: 'applicationId', as: 'assessments' })
   Assessment.belongsTo(Application, { foreignKey: 'applicationId', as: 'application' })
   Assessment.belongsTo(PipeSegment, { foreignKey: 'pipeSegmentId', as: 'segment' })
+  OwnerReview.initModel(sequelize)
+  ReviewDecision.initModel(sequelize)
+  ReviewMessage.initModel(sequelize)
+  ConditionTemplate.initModel(sequelize)
+  SegmentRerun.initModel(sequelize)
+  Permit.initModel(sequelize)
+  OwnerReview.belongsTo(Organisation, { foreignKey: 'ownerOrganisationId', as: 'owner' })
+  OwnerReview.belongsTo(Application, { foreignKey: 'applicationId', as: 'application' })
+  ReviewDecision.belongsTo(User, { foreignKey: 'decidedByUserId', as: 'decidedBy' })
+  ReviewMessage.belongsTo(User, { foreignKey: 'authorUserId', as: 'author' })
+  SegmentRerun.belongsTo(User, { foreignKey: 'createdByUserId', as: 'createdBy' })
+  Permit.belongsTo(User, { foreignKey: 'issuedByUserId', as: 'issuedBy' })
+  Permit.belongsTo(Application, { foreignKey: 'applicationId', as: 'application' })
   initialised = sequelize
 }

@@ -1,5 +1,10 @@
 import { DataTypes, Model } from 'sequelize'
-import type { CreationOptional, InferAttributes, InferCreationAttributes, Sequelize } from 'sequelize'
+import type {
+  CreationOptional,
+  InferAttributes,
+  InferCreationAttributes,
+  Sequelize,
+} from 'sequelize'
 
 /** A file attached to an outgoing mail, read from disk when the mail is sent. */
 export interface OutboxAttachment {
@@ -9,7 +14,10 @@ export interface OutboxAttachment {
 }
 
 /** One mail waiting in (or sent from) the outbox. */
-export class OutboxMail extends Model<InferAttributes<OutboxMail>, InferCreationAttributes<OutboxMail>> {
+export class OutboxMail extends Model<
+  InferAttributes<OutboxMail>,
+  InferCreationAttributes<OutboxMail>
+> {
   declare id: CreationOptional<number>
   declare toAddress: string
   declare subject: string
@@ -37,7 +45,11 @@ export class OutboxMail extends Model<InferAttributes<OutboxMail>, InferCreation
         textBody: { type: DataTypes.TEXT, allowNull: false },
         htmlBody: { type: DataTypes.TEXT, allowNull: true },
         attachments: { type: DataTypes.JSON, allowNull: true },
-        status: { type: DataTypes.ENUM('pending', 'sent', 'failed'), allowNull: false, defaultValue: 'pending' },
+        status: {
+          type: DataTypes.ENUM('pending', 'sent', 'failed'),
+          allowNull: false,
+          defaultValue: 'pending',
+        },
         attempts: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
         nextAttemptAt: { type: DataTypes.DATE(3), allowNull: false },
         lockedBy: { type: DataTypes.STRING(64), allowNull: true },

@@ -16,7 +16,11 @@ export interface SignatureInfo {
  * whole file, so a standard validator reports it signed and unaltered. The placeholder must be
  * added before the document ends, hence this takes the open document.
  */
-export async function endAndSign(doc: PDFKit.PDFDocument, key: SigningKey, info: SignatureInfo): Promise<Buffer> {
+export async function endAndSign(
+  doc: PDFKit.PDFDocument,
+  key: SigningKey,
+  info: SignatureInfo,
+): Promise<Buffer> {
   pdfkitAddPlaceholder({
     pdf: doc,
     pdfBuffer: Buffer.from([]),

@@ -30,7 +30,10 @@ function fingerprint(pem: string): string {
  * folder). A deployment that has a certificate from a trust service puts its own P12 and
  * passphrase there instead.
  */
-export async function loadOrCreateSigningKey(dir: string, organisation = 'Trenchward permits'): Promise<SigningKey> {
+export async function loadOrCreateSigningKey(
+  dir: string,
+  organisation = 'Trenchward permits',
+): Promise<SigningKey> {
   const p12Path = join(dir, P12_FILE)
   const passPath = join(dir, PASS_FILE)
   const certPath = join(dir, CERT_FILE)
@@ -54,7 +57,9 @@ export async function loadOrCreateSigningKey(dir: string, organisation = 'Trench
     ])
     cert.sign(keys.privateKey, forge.md.sha256.create())
     const passphrase = randomBytes(24).toString('base64url')
-    const asn1 = forge.pkcs12.toPkcs12Asn1(keys.privateKey, [cert], passphrase, { algorithm: '3des' })
+    const asn1 = forge.pkcs12.toPkcs12Asn1(keys.privateKey, [cert], passphrase, {
+      algorithm: '3des',
+    })
     const der = forge.asn1.toDer(asn1).getBytes()
     await writeFile(p12Path, Buffer.from(der, 'binary'), { mode: 0o600 })
     await writeFile(passPath, passphrase, { mode: 0o600 })
@@ -66,5 +71,10 @@ export async function loadOrCreateSigningKey(dir: string, organisation = 'Trench
     readFile(passPath, 'utf8'),
     readFile(certPath, 'utf8'),
   ])
-  return { p12, passphrase: passphrase.trim(), certificatePem, certificateSha256: fingerprint(certificatePem) }
+  return {
+    p12,
+    passphrase: passphrase.trim(),
+    certificatePem,
+    certificateSha256: fingerprint(certificatePem),
+  }
 }

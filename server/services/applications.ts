@@ -20,6 +20,7 @@ import { geoJsonToGridWkt } from '../geo/wkt.ts'
 import { Activity, Application, Organisation, User } from '../models/index.ts'
 import { recordAudit } from './audit.ts'
 import { screenApplication } from './screening.ts'
+import { openOwnerReviews } from './review-opening.ts'
 import { applicantScreening } from './screening-view.ts'
 import type { ApplicationScreeningDto } from '../../shared/types/screening.ts'
 
@@ -299,13 +300,18 @@ export async function submitApplication(
     a.version = a.version + 1
     await a.save({ transaction })
     const screening = await screenApplication(sequelize, a.id, parsed.data.activities, transaction)
+    await openOwnerReviews(a, user.id, transaction, now)
     await recordAudit(
       {
         actorUserId: user.id,
         action: 'application-submitted',
         entityType: 'application',
         entityId: a.id,
-        details: { reference: a.reference },
+        details: {
+          reference: a.reference,
+          affectedSegments: screening.affected,
+          verdict: screening.worst,
+        },
       },
       transaction,
     )

@@ -36,7 +36,9 @@ export async function homeItemsFor(user: User): Promise<HomeItem[]> {
         {
           key: 'drafts',
           label: 'Draft applications',
-          count: await Application.count({ where: { applicantOrganisationId: user.organisationId, status: 'draft' } }),
+          count: await Application.count({
+            where: { applicantOrganisationId: user.organisationId, status: 'draft' },
+          }),
           to: '/my-applications',
         },
         {

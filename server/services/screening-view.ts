@@ -28,12 +28,19 @@ export function rulesAppliedInPlainWords(r: AssessmentResult): string[] {
   const out: string[] = []
   const e = r.effects
   if (e.wallFrictionLost) {
-    out.push('The excavation disturbs the original trench wall, so its friction no longer eases the soil load.')
+    out.push(
+      'The excavation disturbs the original trench wall, so its friction no longer eases the soil load.',
+    )
   }
-  if (e.lateralSupportReduced) out.push('The excavation goes below the pipe’s mid-height beside it and takes away side support.')
+  if (e.lateralSupportReduced)
+    out.push(
+      'The excavation goes below the pipe’s mid-height beside it and takes away side support.',
+    )
   if (e.undermined) out.push('The pipe lies in the zone where the excavation face could slip.')
-  if (e.shallowCover) out.push('The pipe lies shallow: loads at the surface reach it with little spreading.')
-  if (e.exposedSpan_m > 0) out.push(`The excavation exposes the pipe over about ${e.exposedSpan_m.toFixed(1)} m.`)
+  if (e.shallowCover)
+    out.push('The pipe lies shallow: loads at the surface reach it with little spreading.')
+  if (e.exposedSpan_m > 0)
+    out.push(`The excavation exposes the pipe over about ${e.exposedSpan_m.toFixed(1)} m.`)
   return out
 }
 
@@ -50,7 +57,10 @@ export async function applicantScreening(
   const cfg = config()
   const t = crsTransform(cfg.PROJECTED_EPSG)
   const rows = await Assessment.findAll({ where: { applicationId }, order: [['id', 'ASC']] })
-  const owners = await Organisation.findAll({ where: { kind: 'network_owner' }, order: [['name', 'ASC']] })
+  const owners = await Organisation.findAll({
+    where: { kind: 'network_owner' },
+    order: [['name', 'ASC']],
+  })
 
   const geometries = new Map<number, [number, number][]>()
   if (rows.length) {
@@ -60,7 +70,10 @@ export async function applicantScreening(
     )
     for (const r of geo) {
       const coords = parseJson<{ coordinates: number[][] }>(r.g).coordinates
-      geometries.set(Number(r.id), coords.map((c) => t.toLonLat(c)))
+      geometries.set(
+        Number(r.id),
+        coords.map((c) => t.toLonLat(c)),
+      )
     }
   }
 
@@ -73,7 +86,11 @@ export async function applicantScreening(
       medium: a.medium as PipeMedium,
       verdict: a.verdict,
       governingCheck: governing
-        ? { id: governing.id, label: CHECK_LABELS[governing.id], utilisationWithWorks: governing.withWorks.utilisation }
+        ? {
+            id: governing.id,
+            label: CHECK_LABELS[governing.id],
+            utilisationWithWorks: governing.withWorks.utilisation,
+          }
         : null,
       summary: result.summary,
       distance_m: a.distance_m,
@@ -90,7 +107,8 @@ export async function applicantScreening(
   const ownerViews: OwnerScreening[] = owners.map((o) => {
     const affected = byOwner.get(o.id) ?? []
     let verdict: Verdict | 'not-affected' = 'not-affected'
-    for (const p of affected) if (VERDICT_RANK[p.verdict] > VERDICT_RANK[verdict]) verdict = p.verdict
+    for (const p of affected)
+      if (VERDICT_RANK[p.verdict] > VERDICT_RANK[verdict]) verdict = p.verdict
     if (VERDICT_RANK[verdict] > VERDICT_RANK[worst]) worst = verdict
     return { organisation: { id: o.id, name: o.name, medium: o.medium }, verdict, affected }
   })
@@ -99,7 +117,10 @@ export async function applicantScreening(
   const influenceZones = grid.map((g) => {
     const distance_m = gridActivityInfluence_m(g, cfg.SCREENING_MIN_DISTANCE_M)
     const ring = g.ring_grid.map((p) => t.toLonLat(p))
-    const zone = turfBuffer(turfPolygon([[...ring, ring[0]!]]), distance_m, { units: 'meters', steps: 8 })
+    const zone = turfBuffer(turfPolygon([[...ring, ring[0]!]]), distance_m, {
+      units: 'meters',
+      steps: 8,
+    })
     return {
       activityIndex: g.sourceIndex,
       distance_m,
@@ -111,9 +132,12 @@ export async function applicantScreening(
     applicationId,
     screenedAt: screenedAt ? screenedAt.toISOString() : null,
     verdict: worst,
-    owners: ownerViews.sort((a, b) => VERDICT_RANK[b.verdict] - VERDICT_RANK[a.verdict] || a.organisation.name.localeCompare(b.organisation.name)),
+    owners: ownerViews.sort(
+      (a, b) =>
+        VERDICT_RANK[b.verdict] - VERDICT_RANK[a.verdict] ||
+        a.organisation.name.localeCompare(b.organisation.name),
+    ),
     influenceZones,
     caution: STANDARD_CAUTION,
   }
 }
-

@@ -79,7 +79,8 @@ export async function screenActivities(
     )
     for (const s of found) {
       const prev = nearby.get(s.id)
-      if (!prev || s.distance_m < prev.distance_m) nearby.set(s.id, { distance_m: s.distance_m, grid: s.grid })
+      if (!prev || s.distance_m < prev.distance_m)
+        nearby.set(s.id, { distance_m: s.distance_m, grid: s.grid })
     }
   }
   if (nearby.size === 0) return { segments: [], reach }

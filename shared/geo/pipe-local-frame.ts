@@ -7,7 +7,11 @@
  * Source: plane rotation of coordinates (elementary analytic geometry).
  */
 import type { XY } from './planar-distance.ts'
-import { pointToSegmentDistance, segmentToSegmentDistance, pointInPolygon } from './planar-distance.ts'
+import {
+  pointToSegmentDistance,
+  segmentToSegmentDistance,
+  pointInPolygon,
+} from './planar-distance.ts'
 
 /** One straight piece of a pipe polyline, with its frame. */
 export interface PipePiece {
@@ -53,7 +57,10 @@ export function toPieceLocal(piece: PipePiece, p: XY): [number, number] {
 }
 
 /** A local-frame point back in grid coordinates (inverse of toPieceLocal). */
-export function fromPieceLocal(piece: PipePiece, local: readonly [number, number]): [number, number] {
+export function fromPieceLocal(
+  piece: PipePiece,
+  local: readonly [number, number],
+): [number, number] {
   const [x_m, y_m] = local
   return [
     piece.start[0] + y_m * piece.ux - x_m * piece.uy,
@@ -63,7 +70,8 @@ export function fromPieceLocal(piece: PipePiece, local: readonly [number, number
 
 /** An open ring (no repeated closing point) in the piece's local frame. */
 export function ringToPieceLocal(piece: PipePiece, ring: readonly XY[]): [number, number][] {
-  const open = ring.length > 1 && samePoint(ring[0]!, ring[ring.length - 1]!) ? ring.slice(0, -1) : ring
+  const open =
+    ring.length > 1 && samePoint(ring[0]!, ring[ring.length - 1]!) ? ring.slice(0, -1) : ring
   return open.map((p) => toPieceLocal(piece, p))
 }
 

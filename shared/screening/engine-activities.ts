@@ -47,7 +47,10 @@ function openRing(t: CrsTransform, ring: readonly (readonly number[])[]): [numbe
 }
 
 /** Every drawn activity as engine activities in the projected CRS. */
-export function toGridActivities(inputs: readonly ActivityInput[], t: CrsTransform): GridActivity[] {
+export function toGridActivities(
+  inputs: readonly ActivityInput[],
+  t: CrsTransform,
+): GridActivity[] {
   const out: GridActivity[] = []
   inputs.forEach((a, i) => {
     const name = a.label?.trim() || `${KIND_NAMES[a.kind]} ${i + 1}`
@@ -77,7 +80,8 @@ export function toGridActivities(inputs: readonly ActivityInput[], t: CrsTransfo
         })
         break
       case 'crane': {
-        const points = a.geometry.type === 'Point' ? [a.geometry.coordinates] : a.geometry.coordinates
+        const points =
+          a.geometry.type === 'Point' ? [a.geometry.coordinates] : a.geometry.coordinates
         points.forEach((p, k) => {
           out.push({
             id: points.length > 1 ? `a${i}-leg${k + 1}` : `a${i}`,
@@ -97,7 +101,12 @@ export function toGridActivities(inputs: readonly ActivityInput[], t: CrsTransfo
 /** The activities in the frame of one straight pipe piece, ready for `assessPipe`. */
 export function toPieceActivities(grid: readonly GridActivity[], piece: PipePiece): Activity[] {
   return grid.map(
-    (g) => ({ ...g.engine, id: g.id, footprint: { polygon_m: ringToPieceLocal(piece, g.ring_grid) } }) as Activity,
+    (g) =>
+      ({
+        ...g.engine,
+        id: g.id,
+        footprint: { polygon_m: ringToPieceLocal(piece, g.ring_grid) },
+      }) as Activity,
   )
 }
 
@@ -113,5 +122,9 @@ export function gridActivityInfluence_m(
 ): number {
   const [cx, cy] = g.ring_grid[0]!
   const local = g.ring_grid.map(([x, y]) => [x - cx, y - cy] as [number, number])
-  return influenceDistance_m({ ...g.engine, id: g.id, footprint: { polygon_m: local } } as Activity, minimum_m, envelope)
+  return influenceDistance_m(
+    { ...g.engine, id: g.id, footprint: { polygon_m: local } } as Activity,
+    minimum_m,
+    envelope,
+  )
 }

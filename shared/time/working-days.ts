@@ -22,12 +22,17 @@ export function isWorkingDay(date: IsoDate, holidays: ReadonlySet<IsoDate>): boo
  * @param days - working days, integer >= 0 (0 gives `start` moved forward to a working day)
  * @param holidays - public holidays as ISO dates
  */
-export function addWorkingDays(start: IsoDate, days: number, holidays: ReadonlySet<IsoDate>): IsoDate {
+export function addWorkingDays(
+  start: IsoDate,
+  days: number,
+  holidays: ReadonlySet<IsoDate>,
+): IsoDate {
   if (!Number.isInteger(days) || days < 0 || days > 3650) {
     throw new RangeError(`days must be a whole number from 0 to 3650 (got ${days})`)
   }
   let d = parseISO(start)
-  if (Number.isNaN(d.getTime())) throw new RangeError(`start must be a date YYYY-MM-DD (got ${start})`)
+  if (Number.isNaN(d.getTime()))
+    throw new RangeError(`start must be a date YYYY-MM-DD (got ${start})`)
   let left = days
   if (left === 0) {
     while (!isWorkingDay(format(d, ISO), holidays)) d = addDays(d, 1)
@@ -44,7 +49,11 @@ export function addWorkingDays(start: IsoDate, days: number, holidays: ReadonlyS
  * Working days from `from` to `to`: positive when `to` is later, 0 on the same day, negative
  * when `to` has passed (overdue by that many working days).
  */
-export function workingDaysBetween(from: IsoDate, to: IsoDate, holidays: ReadonlySet<IsoDate>): number {
+export function workingDaysBetween(
+  from: IsoDate,
+  to: IsoDate,
+  holidays: ReadonlySet<IsoDate>,
+): number {
   if (from === to) return 0
   const sign = from < to ? 1 : -1
   let d = parseISO(sign > 0 ? from : to)

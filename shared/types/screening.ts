@@ -36,7 +36,11 @@ export interface ApplicationScreeningDto {
   verdict: Verdict | 'not-affected'
   owners: OwnerScreening[]
   /** Influence zone of each activity (its footprint widened by its influence distance), WGS84. */
-  influenceZones: { activityIndex: number; distance_m: number; geometry: { type: 'Polygon'; coordinates: [number, number][][] } }[]
+  influenceZones: {
+    activityIndex: number
+    distance_m: number
+    geometry: { type: 'Polygon'; coordinates: [number, number][][] }
+  }[]
   caution: string
 }
 

@@ -35,6 +35,17 @@ export function randomSpot(): [number, number] {
   return [9.87 + Math.random() * 0.16, 52.56 + Math.random() * 0.08]
 }
 
+/**
+ * A random spot in a strip of the service area reserved for screening tests
+ * (10.036..10.046 E, 52.555..52.645 N). Screening searches every owner's pipes, so the tests that
+ * assert which owners are affected build their networks here, where no other test writes:
+ * randomSpot() stays west of 10.03 E and the spatial test's 600 m squares around it end by
+ * 10.035 E.
+ */
+export function screeningSpot(): [number, number] {
+  return [10.036 + Math.random() * 0.01, 52.555 + Math.random() * 0.09]
+}
+
 /** A short (about 34 m) east-west line starting at `origin`, shifted north by `i` × 5 m. */
 export function lineNear(
   i: number,

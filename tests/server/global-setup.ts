@@ -22,9 +22,3 @@ export default async function setup(project: TestProject): Promise<void> {
   }
   project.provide('testEnv', env)
 }
-
-declare module 'vitest' {
-  export interface ProvidedContext {
-    testEnv: Record<string, string>
-  }
-}

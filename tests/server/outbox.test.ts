@@ -33,11 +33,17 @@ describe('mail outbox', () => {
     const port = await freePort()
     const cfg = parseConfig({ ...inject('testEnv'), SMTP_PORT: String(port) })
     const subject = unique('Review due')
-    const id = await enqueueMail({ to: ['engineer@example.test'], subject, text: 'A review is due.' })
+    const id = await enqueueMail({
+      to: ['engineer@example.test'],
+      subject,
+      text: 'A review is due.',
+    })
 
+    // Other tests leave mail in the shared outbox: run the worker until it has tried ours.
     const down = createMailTransport(cfg)
-    const first = await runOutboxOnce(app.sequelize, down, cfg.MAIL_FROM, 500)
-    expect(first.failed).toBeGreaterThanOrEqual(1)
+    for (let i = 0; i < 50 && (await OutboxMail.findByPk(id))!.attempts === 0; i++) {
+      await runOutboxOnce(app.sequelize, down, cfg.MAIL_FROM, 500)
+    }
     const waiting = await OutboxMail.findByPk(id)
     expect(waiting!.status).toBe('pending')
     expect(waiting!.attempts).toBe(1)
@@ -60,7 +66,9 @@ describe('mail outbox', () => {
     try {
       await waiting!.update({ nextAttemptAt: new Date(Date.now() - 1000) })
       const up = createMailTransport(cfg)
-      await runOutboxOnce(app.sequelize, up, cfg.MAIL_FROM, 500)
+      for (let i = 0; i < 50 && (await OutboxMail.findByPk(id))!.status === 'pending'; i++) {
+        await runOutboxOnce(app.sequelize, up, cfg.MAIL_FROM, 500)
+      }
       await runOutboxOnce(app.sequelize, up, cfg.MAIL_FROM, 500)
       up.close()
     } finally {

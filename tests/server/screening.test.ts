@@ -7,7 +7,13 @@ import { activityInputSchema } from '../../shared/schemas/application.ts'
 import { assessPipe, STANDARD_CAUTION } from '../../shared/statics/index.ts'
 import { pipeEngineInput } from '../../server/services/pipe-engine-input.ts'
 import type { PipeSegmentData } from '../../shared/types/network.ts'
-import { featureCollection, importFile, lineFeature, pe100Properties } from '../helpers/network-fixtures.ts'
+import {
+  featureCollection,
+  screeningSpot,
+  importFile,
+  lineFeature,
+  pe100Properties,
+} from '../helpers/network-fixtures.ts'
 import { createTestOrganisation, signedInAgent, startTestApp, unique } from '../helpers/test-app.ts'
 import type { TestApp } from '../helpers/test-app.ts'
 
@@ -23,12 +29,21 @@ const t = crsTransform(25832)
 const day = (offset: number) => format(addDays(new Date(), offset), 'yyyy-MM-dd')
 
 /** A lon/lat point `dx_m` east and `dy_m` north of a grid origin. */
-const at = (origin: [number, number], dx_m: number, dy_m: number) => t.toLonLat([origin[0] + dx_m, origin[1] + dy_m])
+const at = (origin: [number, number], dx_m: number, dy_m: number) =>
+  t.toLonLat([origin[0] + dx_m, origin[1] + dy_m])
 
 /** A rectangle (lon/lat polygon) between grid offsets. */
 const box = (origin: [number, number], x0: number, y0: number, x1: number, y1: number) => ({
   type: 'Polygon' as const,
-  coordinates: [[at(origin, x0, y0), at(origin, x1, y0), at(origin, x1, y1), at(origin, x0, y1), at(origin, x0, y0)]],
+  coordinates: [
+    [
+      at(origin, x0, y0),
+      at(origin, x1, y0),
+      at(origin, x1, y1),
+      at(origin, x0, y1),
+      at(origin, x0, y0),
+    ],
+  ],
 })
 
 /**
@@ -36,7 +51,7 @@ const box = (origin: [number, number], x0: number, y0: number, x1: number, y1: n
  * east along y = 0 and a gas main along y = 200 m, each 60 m long, owned by new organisations.
  */
 async function buildNetwork() {
-  const origin = t.toGrid([9.88 + Math.random() * 0.14, 52.565 + Math.random() * 0.07]) as [number, number]
+  const origin = t.toGrid(screeningSpot()) as [number, number]
   const water = await createTestOrganisation('network_owner', unique('Test Water'))
   const gas = await createTestOrganisation('network_owner', unique('Test Gas'))
   await gas.update({ medium: 'gas' })
@@ -44,20 +59,50 @@ async function buildNetwork() {
   const gasProps = pe100Properties(unique('G'), { medium: 'gas', internalPressure_kPa: 400 })
   const w = await signedInAgent(app, 'asset_engineer', water)
   const g = await signedInAgent(app, 'asset_engineer', gas)
-  expect((await importFile(w.agent, featureCollection([lineFeature(waterProps, [at(origin, 0, 0), at(origin, 60, 0)])]))).status).toBe('committed')
-  expect((await importFile(g.agent, featureCollection([lineFeature(gasProps, [at(origin, 0, 200), at(origin, 60, 200)])]))).status).toBe('committed')
+  expect(
+    (
+      await importFile(
+        w.agent,
+        featureCollection([lineFeature(waterProps, [at(origin, 0, 0), at(origin, 60, 0)])]),
+      )
+    ).status,
+  ).toBe('committed')
+  expect(
+    (
+      await importFile(
+        g.agent,
+        featureCollection([lineFeature(gasProps, [at(origin, 0, 200), at(origin, 60, 200)])]),
+      )
+    ).status,
+  ).toBe('committed')
   return { origin, water, gas, waterProps, gasProps }
 }
 
 /** What the engine says for these activities beside a straight east-running pipe at y0. */
-function expectedVerdict(props: Record<string, unknown>, activities: unknown[], origin: [number, number], y0: number) {
+function expectedVerdict(
+  props: Record<string, unknown>,
+  activities: unknown[],
+  origin: [number, number],
+  y0: number,
+) {
   const parsed = activities.map((a) => activityInputSchema.parse(a))
   const [piece] = pipePieces([
     [origin[0], origin[1] + y0],
     [origin[0] + 60, origin[1] + y0],
   ])
-  const pipe = pipeEngineInput({ ...props, shortTermModulus_MPa: null, longTermModulus_MPa: null, allowableStress_MPa: null, crushingStrength_kN_per_m: null, beddingFactor: null, crushingSafetyFactor: null, deflectionLagFactor: null, deflectionLimit_pct: null } as unknown as PipeSegmentData)
-  return assessPipe({ pipe, activities: toPieceActivities(toGridActivities(parsed, t), piece!) }).verdict
+  const pipe = pipeEngineInput({
+    ...props,
+    shortTermModulus_MPa: null,
+    longTermModulus_MPa: null,
+    allowableStress_MPa: null,
+    crushingStrength_kN_per_m: null,
+    beddingFactor: null,
+    crushingSafetyFactor: null,
+    deflectionLagFactor: null,
+    deflectionLimit_pct: null,
+  } as unknown as PipeSegmentData)
+  return assessPipe({ pipe, activities: toPieceActivities(toGridActivities(parsed, t), piece!) })
+    .verdict
 }
 
 async function submit(agent: ReturnType<TestApp['agent']>, activities: unknown[]) {
@@ -82,13 +127,28 @@ describe('screening on submit', () => {
     const net = await buildNetwork()
     const applicant = await signedInAgent(app, 'applicant')
     // 3 m deep unsupported pit 1.5 m north of the water main's axis.
-    const pit = { kind: 'excavation', label: 'Deep pit', geometry: box(net.origin, 20, 1.5, 24, 4), depth_m: 3, support: 'none', digging: 'mechanical' }
+    const pit = {
+      kind: 'excavation',
+      label: 'Deep pit',
+      geometry: box(net.origin, 20, 1.5, 24, 4),
+      depth_m: 3,
+      support: 'none',
+      digging: 'mechanical',
+    }
     const id = await submit(applicant.agent, [pit])
     const res = await applicant.agent.get(`/api/applications/${id}/screening`)
     expect(res.status).toBe(200)
-    const water = res.body.owners.find((o: { organisation: { id: number } }) => o.organisation.id === net.water.id)
-    const gas = res.body.owners.find((o: { organisation: { id: number } }) => o.organisation.id === net.gas.id)
-    expect(gas).toEqual({ organisation: { id: net.gas.id, name: net.gas.name, medium: 'gas' }, verdict: 'not-affected', affected: [] })
+    const water = res.body.owners.find(
+      (o: { organisation: { id: number } }) => o.organisation.id === net.water.id,
+    )
+    const gas = res.body.owners.find(
+      (o: { organisation: { id: number } }) => o.organisation.id === net.gas.id,
+    )
+    expect(gas).toEqual({
+      organisation: { id: net.gas.id, name: net.gas.name, medium: 'gas' },
+      verdict: 'not-affected',
+      affected: [],
+    })
     expect(water.affected).toHaveLength(1)
     expect(water.affected[0].verdict).toBe(expectedVerdict(net.waterProps, [pit], net.origin, 0))
     expect(water.affected[0].distance_m).toBeCloseTo(1.5, 1)
@@ -99,10 +159,19 @@ describe('screening on submit', () => {
   it('when an excavation crosses the water main, then it is included and the exposed span is named', async () => {
     const net = await buildNetwork()
     const applicant = await signedInAgent(app, 'applicant')
-    const trench = { kind: 'excavation', label: 'Crossing trench', geometry: box(net.origin, 30, -3, 31.2, 3), depth_m: 2, support: 'trench-box', digging: 'mechanical' }
+    const trench = {
+      kind: 'excavation',
+      label: 'Crossing trench',
+      geometry: box(net.origin, 30, -3, 31.2, 3),
+      depth_m: 2,
+      support: 'trench-box',
+      digging: 'mechanical',
+    }
     const id = await submit(applicant.agent, [trench])
     const res = await applicant.agent.get(`/api/applications/${id}/screening`)
-    const water = res.body.owners.find((o: { organisation: { id: number } }) => o.organisation.id === net.water.id)
+    const water = res.body.owners.find(
+      (o: { organisation: { id: number } }) => o.organisation.id === net.water.id,
+    )
     expect(water.affected).toHaveLength(1)
     expect(water.affected[0].distance_m).toBe(0)
     expect(water.affected[0].verdict).toBe(expectedVerdict(net.waterProps, [trench], net.origin, 0))
@@ -116,7 +185,15 @@ describe('screening on submit', () => {
       kind: 'crane',
       label: 'Mobile crane',
       setup: 'outriggers',
-      geometry: { type: 'MultiPoint', coordinates: [at(net.origin, 10, 202), at(net.origin, 16, 202), at(net.origin, 10, 208), at(net.origin, 16, 208)] },
+      geometry: {
+        type: 'MultiPoint',
+        coordinates: [
+          at(net.origin, 10, 202),
+          at(net.origin, 16, 202),
+          at(net.origin, 10, 208),
+          at(net.origin, 16, 208),
+        ],
+      },
       legLoad_kN: 400,
       matLength_m: 1.5,
       matWidth_m: 1.5,
@@ -124,8 +201,12 @@ describe('screening on submit', () => {
     }
     const id = await submit(applicant.agent, [crane])
     const res = await applicant.agent.get(`/api/applications/${id}/screening`)
-    const water = res.body.owners.find((o: { organisation: { id: number } }) => o.organisation.id === net.water.id)
-    const gas = res.body.owners.find((o: { organisation: { id: number } }) => o.organisation.id === net.gas.id)
+    const water = res.body.owners.find(
+      (o: { organisation: { id: number } }) => o.organisation.id === net.water.id,
+    )
+    const gas = res.body.owners.find(
+      (o: { organisation: { id: number } }) => o.organisation.id === net.gas.id,
+    )
     expect(water.verdict).toBe('not-affected')
     expect(gas.affected).toHaveLength(1)
     expect(gas.affected[0].verdict).toBe(expectedVerdict(net.gasProps, [crane], net.origin, 200))
@@ -137,7 +218,14 @@ describe('screening on submit', () => {
     const applicant = await signedInAgent(app, 'applicant')
     const other = await signedInAgent(app, 'applicant')
     const id = await submit(applicant.agent, [
-      { kind: 'fill', label: 'Spoil heap', geometry: box(t.toGrid([9.99, 52.64]) as [number, number], 0, 0, 5, 5), height_m: 1.5, unitWeight_kN_per_m3: 18, duration_days: 10 },
+      {
+        kind: 'fill',
+        label: 'Spoil heap',
+        geometry: box(t.toGrid([9.99, 52.64]) as [number, number], 0, 0, 5, 5),
+        height_m: 1.5,
+        unitWeight_kN_per_m3: 18,
+        duration_days: 10,
+      },
     ])
     expect((await other.agent.get(`/api/applications/${id}/screening`)).status).toBe(404)
   })

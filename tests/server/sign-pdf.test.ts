@@ -25,7 +25,12 @@ describe('signed PDFs', () => {
 
     const doc = new PDFDocument({ size: 'A4' })
     doc.fontSize(14).text('Test permit for a signature check')
-    const pdf = await endAndSign(doc, key, { reason: 'Permit', name: 'Test', location: 'Test', contactInfo: 'test@example.test' })
+    const pdf = await endAndSign(doc, key, {
+      reason: 'Permit',
+      name: 'Test',
+      location: 'Test',
+      contactInfo: 'test@example.test',
+    })
     const file = join(dir, 'signed.pdf')
     writeFileSync(file, pdf)
     const ok = pdfsig(file)

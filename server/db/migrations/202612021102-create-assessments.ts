@@ -37,7 +37,9 @@ export async function up({ queryInterface }: MigrationContext): Promise<void> {
     created_at: { type: DataTypes.DATE, allowNull: false },
     updated_at: { type: DataTypes.DATE, allowNull: false },
   })
-  await queryInterface.addIndex('assessments', ['application_id', 'pipe_segment_id'], { unique: true })
+  await queryInterface.addIndex('assessments', ['application_id', 'pipe_segment_id'], {
+    unique: true,
+  })
   await queryInterface.addIndex('assessments', ['owner_organisation_id', 'application_id'])
   await queryInterface.addIndex('assessments', ['pipe_segment_id'])
 }

@@ -11,7 +11,11 @@ export async function up({ queryInterface }: MigrationContext): Promise<void> {
     text_body: { type: DataTypes.TEXT, allowNull: false },
     html_body: { type: DataTypes.TEXT, allowNull: true },
     attachments: { type: DataTypes.JSON, allowNull: true },
-    status: { type: DataTypes.ENUM('pending', 'sent', 'failed'), allowNull: false, defaultValue: 'pending' },
+    status: {
+      type: DataTypes.ENUM('pending', 'sent', 'failed'),
+      allowNull: false,
+      defaultValue: 'pending',
+    },
     attempts: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
     next_attempt_at: { type: DataTypes.DATE(3), allowNull: false },
     locked_by: { type: DataTypes.STRING(64), allowNull: true },

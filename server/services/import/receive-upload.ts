@@ -1,17 +1,12 @@
-import { createHash, randomUUID } from 'node:crypto'
-import { createWriteStream } from 'node:fs'
-import { mkdir, rm } from 'node:fs/promises'
+import { rm } from 'node:fs/promises'
 import type { IncomingMessage } from 'node:http'
-import { extname, join, resolve } from 'node:path'
-import { pipeline } from 'node:stream/promises'
-import { Transform } from 'node:stream'
-import busboy from 'busboy'
-import { ErrorCode } from '../../../shared/errors.ts'
+import { extname } from 'node:path'
 import type { ImportFormat } from '../../../shared/types/network.ts'
 import { IMPORT_FORMATS } from '../../../shared/types/network.ts'
-import { AppError, validationFailed } from '../../errors.ts'
+import { validationFailed } from '../../errors.ts'
+import { receiveFile } from '../uploads/receive-file.ts'
 
-/** An upload written to disk. */
+/** An import upload written to disk. */
 export interface ReceivedUpload {
   path: string
   sha256: string
@@ -28,106 +23,36 @@ const FORMAT_BY_EXTENSION: Record<string, ImportFormat> = {
 }
 
 /**
- * Streams a multipart upload (field `file`, optional field `format` = geojson | csv) to a new
- * file in `dir`, hashing it on the way; the file never sits in memory. Fails with 400 naming
- * the field, or 413 when it exceeds `maxBytes` (the partial file is removed).
+ * A network file upload (field `file`, optional field `format` = geojson | csv), streamed to
+ * `dir`. The format comes from the field, else from the file name; 400 naming `format` when
+ * neither tells.
  */
 export async function receiveUpload(
   req: IncomingMessage,
   dir: string,
   maxBytes: number,
 ): Promise<ReceivedUpload> {
-  if (!/^multipart\/form-data/i.test(req.headers['content-type'] ?? '')) {
-    throw validationFailed([
-      { field: 'file', message: 'Send the file as multipart/form-data in the field "file"' },
-    ])
-  }
-  await mkdir(dir, { recursive: true })
-  const path = resolve(join(dir, `${randomUUID()}.upload`))
-  let bb: busboy.Busboy
-  try {
-    bb = busboy({
-      headers: req.headers,
-      limits: { files: 1, fields: 4, fileSize: maxBytes, fieldSize: 1024 },
-    })
-  } catch {
-    throw validationFailed([{ field: 'file', message: 'The multipart body is malformed' }])
-  }
-  let formatField: string | undefined
-  let filename = ''
-  let sizeBytes = 0
-  let tooLarge = false
-  let sawFile = false
-  const hash = createHash('sha256')
-  let written: Promise<void> | null = null
-
-  const done = new Promise<void>((ok, fail) => {
-    bb.on('field', (name, value) => {
-      if (name === 'format') formatField = value
-    })
-    bb.on('file', (name, stream, info) => {
-      if (name !== 'file' || sawFile) {
-        stream.resume()
-        return
-      }
-      sawFile = true
-      filename = info.filename ?? ''
-      stream.on('limit', () => {
-        tooLarge = true
-      })
-      const hasher = new Transform({
-        transform(chunk: Buffer, _enc, cb) {
-          sizeBytes += chunk.length
-          hash.update(chunk)
-          cb(null, chunk)
-        },
-      })
-      written = pipeline(stream, hasher, createWriteStream(path))
-      written.catch(fail)
-    })
-    bb.on('error', fail)
-    bb.on('close', () => ok())
-  })
-  req.pipe(bb)
-  try {
-    await done
-    if (written) await written
-  } catch {
-    await rm(path, { force: true })
-    throw validationFailed([{ field: 'file', message: 'The upload was interrupted or malformed' }])
-  }
-  if (!sawFile) throw validationFailed([{ field: 'file', message: 'No file in the field "file"' }])
-  if (tooLarge) {
-    await rm(path, { force: true })
-    throw new AppError(
-      ErrorCode.PAYLOAD_TOO_LARGE,
-      413,
-      `The file is larger than ${Math.round(maxBytes / 1024 / 1024)} MB`,
-    )
-  }
-  if (sizeBytes === 0) {
-    await rm(path, { force: true })
-    throw validationFailed([{ field: 'file', message: 'The file is empty' }])
-  }
+  const file = await receiveFile(req, dir, maxBytes)
+  const formatField = file.fields.format
   const format = formatField
     ? formatField.trim().toLowerCase()
-    : FORMAT_BY_EXTENSION[extname(filename).toLowerCase()]
+    : FORMAT_BY_EXTENSION[extname(file.originalFilename).toLowerCase()]
   if (!format || !(IMPORT_FORMATS as readonly string[]).includes(format)) {
-    await rm(path, { force: true })
+    await rm(file.path, { force: true })
     throw validationFailed([
       {
         field: 'format',
         message: formatField
           ? `Unknown format "${formatField}" (geojson or csv)`
-          : `Cannot tell the format from the name "${filename}"; send format=geojson or format=csv`,
+          : `Cannot tell the format from the name "${file.originalFilename}"; send format=geojson or format=csv`,
       },
     ])
   }
   return {
-    path,
-    sha256: hash.digest('hex'),
-    sizeBytes,
-    originalFilename: filename.slice(0, 255) || 'upload',
+    path: file.path,
+    sha256: file.sha256,
+    sizeBytes: file.sizeBytes,
+    originalFilename: file.originalFilename,
     format: format as ImportFormat,
   }
 }

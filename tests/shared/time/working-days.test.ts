@@ -1,5 +1,9 @@
 import { describe, expect, it } from 'vitest'
-import { addWorkingDays, isWorkingDay, workingDaysBetween } from '../../../shared/time/working-days.ts'
+import {
+  addWorkingDays,
+  isWorkingDay,
+  workingDaysBetween,
+} from '../../../shared/time/working-days.ts'
 
 // Calendar facts (2026-12-04 is a Friday; 2026-12-25 a Friday). Holidays are configured per
 // deployment; the ones here are examples.

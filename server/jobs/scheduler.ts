@@ -1,0 +1,30 @@
+import type { Sequelize } from 'sequelize'
+import type { AppConfig } from '../config.ts'
+import { logger } from '../logger.ts'
+import { expirePermitsOnce } from '../services/permit-expiry.ts'
+import { runRemindersOnce } from '../services/review-reminders.ts'
+
+/**
+ * The in-process scheduler: every REMINDER_INTERVAL_S it sends due review reminders and marks
+ * expired permits. Safe with several app processes (both jobs claim their work in the
+ * database). Returns a function that stops it.
+ */
+export function startScheduler(sequelize: Sequelize, cfg: AppConfig): () => void {
+  let running = false
+  const tick = () => {
+    if (running) return
+    running = true
+    Promise.all([runRemindersOnce(sequelize, cfg), expirePermitsOnce(sequelize)])
+      .then(([reminders, expired]) => {
+        if (reminders || expired) logger.info({ reminders, expired }, 'scheduler run')
+      })
+      .catch((err: unknown) => logger.error({ err }, 'scheduler run failed'))
+      .finally(() => {
+        running = false
+      })
+  }
+  const timer = setInterval(tick, cfg.REMINDER_INTERVAL_S * 1000)
+  timer.unref()
+  setTimeout(tick, 10_000).unref()
+  return () => clearInterval(timer)
+}
