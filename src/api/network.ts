@@ -1,5 +1,4 @@
 import type { FeatureCollection, LineString } from 'geojson'
-import { ErrorCode } from '../../shared/errors.ts'
 import type { ImportMapping } from '../../shared/schemas/import-mapping.ts'
 import type { PipeSegmentEdit } from '../../shared/schemas/pipe-segment.ts'
 import type {
@@ -12,8 +11,9 @@ import type {
   PipeSegmentPage,
 } from '../../shared/types/network.ts'
 import { config } from '../config.ts'
-import { ApiError } from './api-error.ts'
-import { CLIENT_HEADER, http, toApiError } from './http.ts'
+import { http } from './http.ts'
+import { uploadMultipart } from './upload.ts'
+import type { UploadHandle } from './upload.ts'
 
 /** Filters, sort and paging of the segment table (GET /api/network/segments). */
 export interface SegmentListParams {
@@ -125,56 +125,19 @@ export function formatOfFilename(name: string): ImportFormat | null {
   return null
 }
 
-export interface UploadHandle {
-  promise: Promise<NetworkImportDto>
-  abort: () => void
-}
-
 /**
- * Uploads an import file as multipart (field `file`, and `format` when known). Uses
- * XMLHttpRequest, because fetch reports no upload progress; the CSRF header and the error
- * mapping are those of http.ts. `onProgress` gets the fraction sent, 0 to 1.
+ * Uploads an import file as multipart (field `file`, and `format` when known), reporting the
+ * fraction sent to `onProgress`.
  */
 export function uploadImportFile(
   file: File,
   onProgress: (fraction: number) => void,
   format: ImportFormat | null = formatOfFilename(file.name),
-): UploadHandle {
-  const xhr = new XMLHttpRequest()
-  const promise = new Promise<NetworkImportDto>((resolve, reject) => {
-    const body = new FormData()
-    // Fields before the file, so the server has them when the file stream starts.
-    if (format) body.append('format', format)
-    body.append('file', file, file.name)
-    xhr.open('POST', `${config.apiBase}/network/imports`)
-    xhr.setRequestHeader(CLIENT_HEADER, '1')
-    xhr.setRequestHeader('Accept', 'application/json')
-    xhr.withCredentials = true
-    xhr.upload.onprogress = (event) => {
-      if (event.lengthComputable && event.total > 0) onProgress(event.loaded / event.total)
-    }
-    xhr.onload = () => {
-      let parsed: unknown
-      try {
-        parsed = xhr.responseText ? (JSON.parse(xhr.responseText) as unknown) : undefined
-      } catch {
-        parsed = undefined
-      }
-      if (xhr.status >= 200 && xhr.status < 300) {
-        onProgress(1)
-        resolve(parsed as NetworkImportDto)
-      } else reject(toApiError(xhr.status, parsed, xhr.statusText))
-    }
-    xhr.onerror = () =>
-      reject(
-        new ApiError(
-          0,
-          ErrorCode.NETWORK,
-          'The upload was cut off. Check your connection and try again.',
-        ),
-      )
-    xhr.onabort = () => reject(new DOMException('The upload was cancelled', 'AbortError'))
-    xhr.send(body)
-  })
-  return { promise, abort: () => xhr.abort() }
+): UploadHandle<NetworkImportDto> {
+  return uploadMultipart<NetworkImportDto>(
+    '/network/imports',
+    file,
+    format ? { format } : {},
+    onProgress,
+  )
 }

@@ -116,6 +116,21 @@ describe('applications in a real browser', () => {
 
       // 3) Check and submit
       await page.locator('[data-testid="to-review"]').click()
+      // Attach a method statement (a tiny PDF made here) before submitting.
+      await page
+        .locator(
+          'input[type=file][data-testid="attachment-file"], [data-testid="attachment-file"] input[type=file]',
+        )
+        .first()
+        .setInputFiles({
+          name: 'method-statement.pdf',
+          mimeType: 'application/pdf',
+          buffer: Buffer.from('%PDF-1.4\n%%EOF\n', 'latin1'),
+        })
+      await page.locator('[data-testid="attachment-add"]').click()
+      await page
+        .locator('.attachments .q-item', { hasText: 'method-statement.pdf' })
+        .waitFor({ timeout: 10_000 })
       await page.screenshot({ path: join(SCREENSHOT_DIR, 'applications-form-review.png') })
       await page.locator('[data-testid="submit-application"]').click()
       await page.waitForURL(/\/applications\/\d+$/, { timeout: 20_000 })
