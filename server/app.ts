@@ -23,6 +23,7 @@ import { mapRouter } from './routes/map.ts'
 import { networkRouter } from './routes/network.ts'
 import { applicationReviewsRouter } from './routes/application-reviews.ts'
 import { conditionTemplatesRouter } from './routes/condition-templates.ts'
+import { coordinationRouter } from './routes/coordination.ts'
 import { permitOfficeRouter } from './routes/permit-office.ts'
 import { permitsRouter } from './routes/permits.ts'
 import { reviewsRouter } from './routes/reviews.ts'
@@ -111,6 +112,7 @@ export function createApp(cfg: AppConfig, sequelize: Sequelize): CreatedApp {
   api.use('/condition-templates', conditionTemplatesRouter)
   api.use('/permit-office', permitOfficeRouter(sequelize))
   api.use('/permits', permitsRouter(sequelize))
+  api.use('/coordination', coordinationRouter(sequelize))
   api.use('/verify', verifyRouter)
   api.use(mapRouter(sequelize))
   api.use('/network', networkRouter(sequelize))

@@ -72,6 +72,8 @@ const envSchema = z.object({
     }),
   /** Most features the public screening outline returns for one map view. */
   OUTLINE_MAX_FEATURES: z.coerce.number().int().min(1).max(100_000).default(5000),
+  /** Most segments the owner's network map gets for one view (then it says `truncated`). */
+  MAP_LINES_MAX_FEATURES: z.coerce.number().int().min(1).max(200_000).default(20_000),
   /** Working days an owner has to answer a review (weekends and PUBLIC_HOLIDAYS skipped). */
   REVIEW_PERIOD_WORKING_DAYS: z.coerce.number().int().min(1).max(260).default(10),
   /** Public holidays as a comma list of YYYY-MM-DD; they do not count as working days. */

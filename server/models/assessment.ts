@@ -6,6 +6,7 @@ import type {
   Sequelize,
 } from 'sequelize'
 import type { AssessmentInput, AssessmentResult, Verdict } from '../../shared/statics/types.ts'
+import type { StoredCombinedScreening } from '../../shared/types/coordination.ts'
 
 /** The screening result of one application for one pipe segment. */
 export class Assessment extends Model<
@@ -26,6 +27,9 @@ export class Assessment extends Model<
   declare engineInput: AssessmentInput
   declare result: AssessmentResult
   declare engineVersion: string
+  /** Worst verdict together with concurrent works on this segment; null when none overlap. */
+  declare combinedVerdict: CreationOptional<Verdict> | null
+  declare combined: CreationOptional<StoredCombinedScreening> | null
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
 
@@ -46,6 +50,11 @@ export class Assessment extends Model<
         engineInput: { type: DataTypes.JSON, allowNull: false },
         result: { type: DataTypes.JSON, allowNull: false },
         engineVersion: { type: DataTypes.STRING(40), allowNull: false },
+        combinedVerdict: {
+          type: DataTypes.ENUM('clear', 'conditional', 'critical'),
+          allowNull: true,
+        },
+        combined: { type: DataTypes.JSON, allowNull: true },
         createdAt: DataTypes.DATE,
         updatedAt: DataTypes.DATE,
       },

@@ -5,6 +5,7 @@ import { importMappingSchema } from '../../shared/schemas/import-mapping.ts'
 import {
   idParamSchema,
   importCommitSchema,
+  mapLinesQuerySchema,
   outlineQuerySchema,
   segmentExportQuerySchema,
   segmentListQuerySchema,
@@ -27,6 +28,7 @@ import {
 import { receiveUpload } from '../services/import/receive-upload.ts'
 import { segmentReadScope, segmentWriteOwner } from '../services/network-access.ts'
 import { exportSegments } from '../services/network-export.ts'
+import { mapLinesInBox } from '../services/network-map-lines.ts'
 import { outlineInBox } from '../services/network-outline.ts'
 import { getSegment, listSegments, updateSegment } from '../services/network-segments.ts'
 
@@ -34,7 +36,7 @@ const owners = allow(['asset_engineer'])
 const ownersAndAdmins = allow(['asset_engineer', 'admin'])
 
 /**
- * /api/network: an owner's pipe segments (list, detail, edit, export), imports (upload, mapping,
+ * /api/network: an owner's pipe segments (list, detail, edit, export, map lines), imports (upload, mapping,
  * validate, report, commit, progress) and, for every signed-in user, the screening outline.
  * Design data never leave through a route open to other organisations (see network-access.ts).
  */
@@ -50,6 +52,21 @@ export function networkRouter(sequelize: Sequelize): Router {
 
   router.get('/segments', ownersAndAdmins, async (req, res) => {
     res.json(await listSegments(req.user!, segmentListQuerySchema.parse(req.query)))
+  })
+
+  // The owner's network map: compact lines in the view (same access as /segments).
+  router.get('/map-lines', ownersAndAdmins, async (req, res) => {
+    const q = mapLinesQuerySchema.parse(req.query)
+    const scope = segmentReadScope(req.user!)
+    const ownerOrganisationId = scope.kind === 'owner' ? scope.organisationId : (q.ownerId ?? null)
+    res.json(
+      await mapLinesInBox(
+        sequelize,
+        config().PROJECTED_EPSG,
+        { bbox: q.bbox, zoom: q.zoom, ownerOrganisationId },
+        config().MAP_LINES_MAX_FEATURES,
+      ),
+    )
   })
 
   router.get('/segments/:id', ownersAndAdmins, async (req, res) => {

@@ -31,7 +31,8 @@ export function permitsRouter(sequelize: Sequelize): Router {
     const { path, filename } = await permitDocument(req.user!, idParam.parse(req.params).id)
     res.setHeader('Content-Type', 'application/pdf')
     res.setHeader('Content-Disposition', `attachment; filename="${filename}"`)
-    res.sendFile(path)
+    // The data folder may be a dot folder (.data); the path comes from our own row, not the request.
+    res.sendFile(path, { dotfiles: 'allow' })
   })
 
   router.post('/:id/extend', officers, async (req, res) => {

@@ -20,6 +20,7 @@ import { geoJsonToGridWkt } from '../geo/wkt.ts'
 import { Activity, Application, Organisation, User } from '../models/index.ts'
 import { recordAudit } from './audit.ts'
 import { screenApplication } from './screening.ts'
+import { rescreenCombined } from './combined-screening.ts'
 import { openOwnerReviews } from './review-opening.ts'
 import { applicantScreening } from './screening-view.ts'
 import type { ApplicationScreeningDto } from '../../shared/types/screening.ts'
@@ -300,6 +301,8 @@ export async function submitApplication(
     a.version = a.version + 1
     await a.save({ transaction })
     const screening = await screenApplication(sequelize, a.id, parsed.data.activities, transaction)
+    // Combined with other live works on the same segments, and theirs with this one.
+    await rescreenCombined(sequelize, a.id, transaction, now)
     await openOwnerReviews(a, user.id, transaction, now)
     await recordAudit(
       {
@@ -334,6 +337,8 @@ export async function withdrawApplication(
     a.status = 'withdrawn'
     a.version = a.version + 1
     await a.save({ transaction })
+    // Its works no longer add to anyone else's.
+    await rescreenCombined(sequelize, a.id, transaction)
     await recordAudit(
       {
         actorUserId: user.id,

@@ -21,3 +21,14 @@ export async function userEmail(userId: number, transaction?: Transaction): Prom
   const u = await User.findByPk(userId, { attributes: ['email', 'active'], transaction })
   return u && u.active ? [u.email] : []
 }
+
+/** E-mail addresses of every active user with a role, whatever the organisation (the permit office). */
+export async function roleEmails(role: User['role'], transaction?: Transaction): Promise<string[]> {
+  const users = await User.findAll({
+    where: { role, active: true },
+    attributes: ['email'],
+    order: [['id', 'ASC']],
+    transaction,
+  })
+  return users.map((u) => u.email)
+}

@@ -1,9 +1,9 @@
 import { QueryTypes } from 'sequelize'
 import type { Sequelize } from 'sequelize'
-import { crsTransform } from '../../shared/geo/crs.ts'
 import type { OutlineCollection, PipeMedium } from '../../shared/types/network.ts'
 import { gridToLonLat } from './network-segments.ts'
 import { organisationNames } from './organisation-names.ts'
+import { gridBoxWkt } from './spatial-query.ts'
 
 /**
  * The public screening outline in a map view: where pipes lie, whose they are and what they
@@ -20,24 +20,7 @@ export async function outlineInBox(
   bbox: readonly [number, number, number, number],
   maxFeatures: number,
 ): Promise<OutlineCollection> {
-  const [minLon, minLat, maxLon, maxLat] = bbox
-  const t = crsTransform(epsg)
-  const midLon = (minLon + maxLon) / 2
-  const midLat = (minLat + maxLat) / 2
-  const pts = [
-    [minLon, minLat],
-    [maxLon, minLat],
-    [maxLon, maxLat],
-    [minLon, maxLat],
-    [midLon, minLat],
-    [midLon, maxLat],
-    [minLon, midLat],
-    [maxLon, midLat],
-  ].map((p) => t.toGrid(p))
-  const xs = pts.map((p) => p[0])
-  const ys = pts.map((p) => p[1])
-  const [x0, x1, y0, y1] = [Math.min(...xs), Math.max(...xs), Math.min(...ys), Math.max(...ys)]
-  const box = `POLYGON((${x0} ${y0},${x1} ${y0},${x1} ${y1},${x0} ${y1},${x0} ${y0}))`
+  const box = gridBoxWkt(bbox, epsg)
   const rows = await sequelize.query<{
     id: number
     ownerId: number

@@ -41,6 +41,7 @@ import { isoToday, reviewClock } from './review-clock.ts'
 import { parseJson, storedConditions } from './review-dto.ts'
 import { activityFeatures, segmentLines } from './reviews.ts'
 import { lockApplication } from './review-progress.ts'
+import { rescreenCombined } from './combined-screening.ts'
 
 const QUEUE_STATUSES: Record<'open' | 'decided' | 'all', ApplicationStatus[]> = {
   open: ['submitted', 'with_owners', 'ready_for_decision'],
@@ -353,6 +354,8 @@ export async function grantPermit(
     a.status = 'granted'
     a.version = a.version + 1
     await a.save({ transaction })
+    // Granted works now count over the permit's validity; re-screen who shares its pipes.
+    await rescreenCombined(sequelize, a.id, transaction, now)
     await recordAudit(
       {
         actorUserId: user.id,
@@ -414,6 +417,7 @@ export async function refuseApplication(
     a.status = 'refused'
     a.version = a.version + 1
     await a.save({ transaction })
+    await rescreenCombined(sequelize, a.id, transaction)
     await recordAudit(
       {
         actorUserId: user.id,

@@ -22,6 +22,7 @@ import {
 import { isoToday } from './review-clock.ts'
 import { parseJson } from './review-dto.ts'
 import { lockApplication } from './review-progress.ts'
+import { rescreenCombined } from './combined-screening.ts'
 
 const withIssuer = { include: [{ model: User, as: 'issuedBy', attributes: ['id', 'name'] }] }
 const issuerOf = (p: Permit) => (p as Permit & { issuedBy?: User }).issuedBy ?? null
@@ -166,6 +167,8 @@ async function reissue(
       application.version = application.version + 1
       await application.save({ transaction })
     }
+    // A new issue may change the days the works count; re-screen who shares its pipes.
+    await rescreenCombined(sequelize, application.id, transaction, now)
     await recordAudit(
       {
         actorUserId: user.id,
@@ -258,6 +261,7 @@ export async function revokePermit(
     application.status = 'revoked'
     application.version = application.version + 1
     await application.save({ transaction })
+    await rescreenCombined(sequelize, application.id, transaction, now)
     await recordAudit(
       {
         actorUserId: user.id,

@@ -46,6 +46,7 @@ import {
   lockApplication,
   refreshApplicationStatus,
 } from './review-progress.ts'
+import { ownerCombinedView } from './combined-statement-view.ts'
 
 const QUEUE_STATES: Record<'open' | 'answered' | 'all', ReviewState[]> = {
   open: ['waiting', 'information_requested'],
@@ -276,6 +277,7 @@ export async function getReviewDetail(
       result: parseJson<AssessmentResult>(s.result),
       geometry: { type: 'LineString' as const, coordinates: lines.get(s.pipeSegmentId) ?? [] },
       reruns: reruns.filter((x) => x.assessmentId === s.id).map(toRerunDto),
+      combined: ownerCombinedView(s),
     })),
     proposedConditions: proposedConditions(assessments),
     library,

@@ -17,6 +17,7 @@ import type {
   OwnerScreening,
 } from '../../shared/types/screening.ts'
 import { config } from '../config.ts'
+import { combinedStatement } from './combined-statement-view.ts'
 import { Assessment, Organisation } from '../models/index.ts'
 
 function parseJson<T>(v: unknown): T {
@@ -97,6 +98,7 @@ export async function applicantScreening(
       conditions: result.conditions.map((c) => ({ code: c.code, text: c.text, reason: c.reason })),
       rulesApplied: rulesAppliedInPlainWords(result),
       geometry: { type: 'LineString', coordinates: geometries.get(a.pipeSegmentId) ?? [] },
+      combined: combinedStatement(a),
     }
     const list = byOwner.get(a.ownerOrganisationId) ?? []
     list.push(item)

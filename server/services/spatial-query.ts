@@ -1,5 +1,6 @@
 import { QueryTypes } from 'sequelize'
 import type { Sequelize } from 'sequelize'
+import { crsTransform } from '../../shared/geo/crs.ts'
 import {
   polylineToPolygonDistance,
   polylineToPolylineDistance,
@@ -32,6 +33,34 @@ export interface SegmentNear {
  */
 export const BUFFER_MARGIN_M = 0.05
 
+/**
+ * A WGS84 bbox as a WKT rectangle in the projected CRS that encloses it: the bbox's corners and
+ * edge midpoints are projected and their extremes taken (a projected bbox is not a rectangle).
+ * For MBRIntersects selections on the spatial index.
+ *
+ * @param bbox - minLon, minLat, maxLon, maxLat in degrees
+ */
+export function gridBoxWkt(bbox: readonly [number, number, number, number], epsg: number): string {
+  const [minLon, minLat, maxLon, maxLat] = bbox
+  const t = crsTransform(epsg)
+  const midLon = (minLon + maxLon) / 2
+  const midLat = (minLat + maxLat) / 2
+  const pts = [
+    [minLon, minLat],
+    [maxLon, minLat],
+    [maxLon, maxLat],
+    [minLon, maxLat],
+    [midLon, minLat],
+    [midLon, maxLat],
+    [minLon, midLat],
+    [maxLon, midLat],
+  ].map((p) => t.toGrid(p))
+  const xs = pts.map((p) => p[0])
+  const ys = pts.map((p) => p[1])
+  const [x0, x1, y0, y1] = [Math.min(...xs), Math.max(...xs), Math.min(...ys), Math.max(...ys)]
+  return `POLYGON((${x0} ${y0},${x1} ${y0},${x1} ${y1},${x0} ${y1},${x0} ${y0}))`
+}
+
 function wktOf(shape: GridShape): string {
   const xy = (p: readonly number[]) => `${p[0]} ${p[1]}`
   switch (shape.type) {
@@ -63,6 +92,9 @@ function exactDistance(shape: GridShape, line: [number, number][]): number {
  * Data protection: this returns no design data; callers that run the engine load the segment
  * rows themselves and must apply the access rules of network-access.ts to anything they show.
  *
+ * The spatial index is forced: with an owner filter and a large shape MariaDB 10.11 otherwise
+ * picks a plan that fails with error 1207 (update locks in READ UNCOMMITTED).
+ *
  * @param shape - polygon rings, polyline or points in the projected CRS (metres)
  * @param distance_m - influence distance, metres, >= 0
  * @param opts - restrict to one owner
@@ -90,7 +122,7 @@ export async function findSegmentsNear(
     g: unknown
   }>(
     `SELECT s.id, s.owner_organisation_id AS ownerOrganisationId, s.medium, ST_AsGeoJSON(s.geom) AS g
-       FROM pipe_segments s
+       FROM pipe_segments s FORCE INDEX (pipe_segments_geom)
       WHERE ST_Intersects(s.geom, ST_Buffer(ST_GeomFromText(?, ${Number(epsg)}), ?))${ownerClause}`,
     { replacements: params, type: QueryTypes.SELECT },
   )

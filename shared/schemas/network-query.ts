@@ -61,6 +61,16 @@ export const bboxParamSchema = z
 /** `GET /api/network/outline` query. */
 export const outlineQuerySchema = z.object({ bbox: bboxParamSchema })
 
+/**
+ * `GET /api/network/map-lines` query: the outline's bbox plus the map's zoom level (lines are
+ * cut to their end points below MAP_LINES_DETAIL_ZOOM). `ownerId` is for admins only.
+ */
+export const mapLinesQuerySchema = outlineQuerySchema.extend({
+  zoom: z.coerce.number({ error: 'Expected a number' }).min(0).max(30),
+  ownerId: z.coerce.number().int().positive().optional(),
+})
+export type MapLinesQuery = z.infer<typeof mapLinesQuerySchema>
+
 /** `POST /api/network/imports/:id/commit` body: the skip-invalid choice must be explicit. */
 export const importCommitSchema = z
   .object({

@@ -20,7 +20,10 @@ import type { Activity, InfluenceEnvelope } from '../statics/index.ts'
 
 /** An engine activity whose footprint is still an open ring in the projected CRS. */
 export interface GridActivity {
-  /** Engine id: `a<index>` or `a<index>-leg<k>` for crane outriggers. */
+  /**
+   * Engine id, which the engine also uses in its wording: the plain-word name, made unique
+   * within the application ("Connection pit", "Crane, outrigger 2", "Excavation 3 (2)").
+   */
   id: string
   /** Index of the drawn activity it comes from. */
   sourceIndex: number
@@ -52,12 +55,19 @@ export function toGridActivities(
   t: CrsTransform,
 ): GridActivity[] {
   const out: GridActivity[] = []
+  const used = new Set<string>()
+  const uniqueId = (name: string) => {
+    let id = name
+    for (let n = 2; used.has(id); n++) id = `${name} (${n})`
+    used.add(id)
+    return id
+  }
   inputs.forEach((a, i) => {
     const name = a.label?.trim() || `${KIND_NAMES[a.kind]} ${i + 1}`
     switch (a.kind) {
       case 'excavation':
         out.push({
-          id: `a${i}`,
+          id: uniqueId(name),
           sourceIndex: i,
           name,
           ring_grid: openRing(t, a.geometry.coordinates[0]!),
@@ -66,7 +76,7 @@ export function toGridActivities(
         break
       case 'fill':
         out.push({
-          id: `a${i}`,
+          id: uniqueId(name),
           sourceIndex: i,
           name,
           ring_grid: openRing(t, a.geometry.coordinates[0]!),
@@ -83,10 +93,11 @@ export function toGridActivities(
         const points =
           a.geometry.type === 'Point' ? [a.geometry.coordinates] : a.geometry.coordinates
         points.forEach((p, k) => {
+          const legName = points.length > 1 ? `${name}, outrigger ${k + 1}` : name
           out.push({
-            id: points.length > 1 ? `a${i}-leg${k + 1}` : `a${i}`,
+            id: uniqueId(legName),
             sourceIndex: i,
-            name: points.length > 1 ? `${name}, outrigger ${k + 1}` : name,
+            name: legName,
             ring_grid: matRectangle(t.toGrid(p), a.matLength_m, a.matWidth_m, a.matRotation_deg),
             engine: { kind: 'pad', load_kN: a.legLoad_kN, loadDuration: 'short-term' },
           })

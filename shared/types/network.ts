@@ -222,3 +222,32 @@ export interface OutlineCollection {
   /** True when the view held more segments than the outline returns; zoom in for all. */
   truncated: boolean
 }
+
+/**
+ * Below this zoom level the network map gets each line as its two end points only. At zoom 13
+ * a pixel is about 12 m on the ground in the demo town, so the bends of a typical 20-50 m
+ * segment are a few pixels at most; dropping the inner vertices cuts the payload and the
+ * transform work. From this zoom on the lines come with every vertex.
+ */
+export const MAP_LINES_DETAIL_ZOOM = 14
+
+/**
+ * One segment on the owner's network map, in compact form: short property names because a
+ * view can hold 20,000 of them. `m` medium, `u` baseline utilisation (null when not assessed),
+ * `o` 1 when over capacity without any works, else 0.
+ */
+export interface MapLineFeature {
+  type: 'Feature'
+  id: number
+  properties: { m: PipeMedium; u: number | null; o: 0 | 1 }
+  /** WGS84, rounded to 6 decimals (about 0.1 m); only the two end points below zoom 14. */
+  geometry: LineStringLonLat
+}
+
+/** `GET /api/network/map-lines`: the owner's segments in a map view. */
+export interface MapLineCollection {
+  type: 'FeatureCollection'
+  features: MapLineFeature[]
+  /** True when the view held more segments than the limit; zoom in for all. */
+  truncated: boolean
+}

@@ -1,3 +1,4 @@
+import type { CombinedStatement } from './coordination.ts'
 import type { ApplicationDto, ApplicationStatus } from './application.ts'
 import type { ConditionTemplateDto } from './condition-templates.ts'
 import type { AssessmentInput, AssessmentResult, Verdict } from '../statics/types.ts'
@@ -125,6 +126,11 @@ export interface ReviewSegmentDto {
   result: AssessmentResult
   geometry: { type: 'LineString'; coordinates: [number, number][] }
   reruns: SegmentRerunDto[]
+  /**
+   * Other live works on this segment at the same time: the plain statement and the engine input
+   * and result of the worst combined period; null when none overlap in time and place.
+   */
+  combined: (CombinedStatement & { engineInput: AssessmentInput; result: AssessmentResult }) | null
 }
 
 /** A condition the engine proposed for one of the segments, ready to take over. */

@@ -1,4 +1,5 @@
 import type { CheckId, ConditionCode, Verdict } from '../statics/types.ts'
+import type { CombinedStatement } from './coordination.ts'
 import type { PipeMedium } from './network.ts'
 
 /**
@@ -21,6 +22,11 @@ export interface AffectedPipeForApplicant {
   rulesApplied: string[]
   /** The pipe's centre line in WGS84, to highlight it on the map. */
   geometry: { type: 'LineString'; coordinates: [number, number][] }
+  /**
+   * Other live works on this pipe at the same time, and what they change (only their reference,
+   * dates and activity kinds); null when none overlap in time and place.
+   */
+  combined: CombinedStatement | null
 }
 
 export interface OwnerScreening {

@@ -5,6 +5,7 @@ import type {
   ImportFormat,
   ImportPreviewDto,
   ImportReportPage,
+  MapLineCollection,
   NetworkImportDto,
   PipeMedium,
   PipeSegmentDto,
@@ -80,9 +81,33 @@ export function exportUrl(medium?: PipeMedium | null): string {
   return medium ? `${base}?medium=${encodeURIComponent(medium)}` : base
 }
 
-/** The owner's whole network as GeoJSON (the export), for the network map. */
-export function fetchNetworkGeoJson(signal?: AbortSignal): Promise<NetworkCollection> {
-  return http.get<NetworkCollection>('/network/export', undefined, signal)
+/**
+ * The owner's segments in a map view, compact (GET /api/network/map-lines): below zoom
+ * MAP_LINES_DETAIL_ZOOM each line is its two end points; `truncated` when the view held more
+ * than the server's limit.
+ *
+ * @param bbox - minLon, minLat, maxLon, maxLat in WGS84 degrees
+ */
+export function fetchMapLines(
+  bbox: readonly [number, number, number, number],
+  zoom: number,
+  signal?: AbortSignal,
+): Promise<MapLineCollection> {
+  return http.get<MapLineCollection>(
+    '/network/map-lines',
+    {
+      // Rounded outwards to 6 decimals, so the edges of the view stay inside.
+      bbox: bbox.map((v, i) => (i < 2 ? Math.floor(v * 1e6) : Math.ceil(v * 1e6)) / 1e6).join(','),
+      zoom: Math.round(zoom * 100) / 100,
+    },
+    signal,
+  )
+}
+
+/** How many segments the owner has (the unfiltered table's total). */
+export async function fetchSegmentCount(): Promise<number> {
+  const page = await http.get<PipeSegmentPage>('/network/segments', { page: 1, pageSize: 1 })
+  return page.total
 }
 
 export function fetchImportMapping(): Promise<ImportMapping> {

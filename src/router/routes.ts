@@ -74,7 +74,7 @@ export const routes: RouteRecordRaw[] = [
       {
         path: 'reviews',
         name: 'reviews',
-        component: BeingBuiltPage,
+        component: () => import('../pages/ReviewsPage.vue'),
         meta: {
           title: 'Reviews',
           navIcon: matFactCheck,
@@ -82,6 +82,12 @@ export const routes: RouteRecordRaw[] = [
           summary:
             'The requests that touch your pipes, soonest due first, each with the affected segments, their checks and your decision.',
         },
+      },
+      {
+        path: 'reviews/:id(\\d+)',
+        name: 'review-detail',
+        component: () => import('../pages/ReviewPage.vue'),
+        meta: { title: 'Review', roles: ['asset_engineer'] },
       },
       {
         path: 'network',
@@ -110,7 +116,7 @@ export const routes: RouteRecordRaw[] = [
       {
         path: 'condition-library',
         name: 'condition-library',
-        component: BeingBuiltPage,
+        component: () => import('../pages/ConditionLibraryPage.vue'),
         meta: {
           title: 'Condition library',
           navIcon: matLibraryBooks,
@@ -124,7 +130,7 @@ export const routes: RouteRecordRaw[] = [
       {
         path: 'applications',
         name: 'applications',
-        component: BeingBuiltPage,
+        component: () => import('../pages/OfficeQueuePage.vue'),
         meta: {
           title: 'Applications',
           navIcon: matAssignment,
@@ -132,6 +138,12 @@ export const routes: RouteRecordRaw[] = [
           summary:
             'Every application in the borough with each owner’s answer; overdue reviews are marked so you can chase them.',
         },
+      },
+      {
+        path: 'applications/:id(\\d+)/decision',
+        name: 'application-decision',
+        component: () => import('../pages/OfficeDecisionPage.vue'),
+        meta: { title: 'Application decision', roles: ['permit_officer', 'admin'] },
       },
       {
         path: 'works-map',
@@ -175,6 +187,20 @@ export const routes: RouteRecordRaw[] = [
         name: 'admin-audit',
         component: () => import('../pages/AuditLogPage.vue'),
         meta: { title: 'Audit log', navIcon: matHistory, roles: ['admin'] },
+      },
+    ],
+  },
+
+  // Public: anyone may check a permit code (from the QR code on the PDF).
+  {
+    path: '/verify',
+    component: () => import('../layouts/PlainLayout.vue'),
+    children: [
+      {
+        path: ':code?',
+        name: 'verify',
+        component: () => import('../pages/VerifyPage.vue'),
+        meta: { public: true, title: 'Check a permit' },
       },
     ],
   },

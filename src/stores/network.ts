@@ -1,11 +1,14 @@
 import { defineStore } from 'pinia'
 import { ref } from 'vue'
 import * as networkApi from '../api/network.ts'
-import type { NetworkCollection, SegmentListParams } from '../api/network.ts'
+import type { SegmentListParams } from '../api/network.ts'
 import type { PipeSegmentEdit } from '../../shared/schemas/pipe-segment.ts'
 import type { PipeSegmentDto, PipeSegmentSummaryDto } from '../../shared/types/network.ts'
 
-/** The owner's pipe network: the table page, the map data, the open segment. */
+/**
+ * The owner's pipe network: the table page, the segment count, the open segment. The map loads
+ * its own lines per view (NetworkMap.vue); `mapVersion` tells it to reload after a change.
+ */
 export const useNetworkStore = defineStore('network', () => {
   const rows = ref<PipeSegmentSummaryDto[]>([])
   const total = ref(0)
@@ -22,10 +25,10 @@ export const useNetworkStore = defineStore('network', () => {
   const tableLoading = ref(false)
   const overCapacityCount = ref<number | null>(null)
 
-  const mapData = ref<NetworkCollection | null>(null)
-  const mapLoading = ref(false)
-  /** Set after an edit or import, so the map reloads when next shown. */
-  const mapStale = ref(true)
+  /** How many segments the owner has; null until loaded. */
+  const segmentCount = ref<number | null>(null)
+  /** Raised after an edit or import, so a shown map reloads its lines. */
+  const mapVersion = ref(0)
 
   const selected = ref<PipeSegmentDto | null>(null)
   const selectedLoading = ref(false)
@@ -53,15 +56,8 @@ export const useNetworkStore = defineStore('network', () => {
     overCapacityCount.value = await networkApi.fetchOverCapacityCount()
   }
 
-  async function loadMap(force = false): Promise<void> {
-    if (!force && !mapStale.value && mapData.value) return
-    mapLoading.value = true
-    try {
-      mapData.value = await networkApi.fetchNetworkGeoJson()
-      mapStale.value = false
-    } finally {
-      mapLoading.value = false
-    }
+  async function loadSegmentCount(): Promise<void> {
+    segmentCount.value = await networkApi.fetchSegmentCount()
   }
 
   async function selectSegment(id: number | null): Promise<void> {
@@ -92,14 +88,15 @@ export const useNetworkStore = defineStore('network', () => {
     const saved = await networkApi.updateSegment(id, edit)
     current.value = saved
     if (selected.value?.id === id) selected.value = saved
-    mapStale.value = true
+    mapVersion.value++
     overCapacityCount.value = null
     return saved
   }
 
   /** After an import: everything shown of the network is out of date. */
   function markChanged(): void {
-    mapStale.value = true
+    mapVersion.value++
+    segmentCount.value = null
     overCapacityCount.value = null
     selected.value = null
   }
@@ -110,16 +107,15 @@ export const useNetworkStore = defineStore('network', () => {
     query,
     tableLoading,
     overCapacityCount,
-    mapData,
-    mapLoading,
-    mapStale,
+    segmentCount,
+    mapVersion,
     selected,
     selectedLoading,
     current,
     currentLoading,
     loadSegments,
     loadOverCapacityCount,
-    loadMap,
+    loadSegmentCount,
     selectSegment,
     loadSegment,
     saveSegment,

@@ -1,3 +1,6 @@
+import { QueryTypes } from 'sequelize'
+import type { Sequelize } from 'sequelize'
+import { crsTransform } from '../../shared/geo/crs.ts'
 import type request from 'supertest'
 
 /** Design data of a plausible PE100 water main (engine field names; covers at both ends). */
@@ -36,14 +39,30 @@ export function randomSpot(): [number, number] {
 }
 
 /**
- * A random spot in a strip of the service area reserved for screening tests
- * (10.036..10.046 E, 52.555..52.645 N). Screening searches every owner's pipes, so the tests that
- * assert which owners are affected build their networks here, where no other test writes:
- * randomSpot() stays west of 10.03 E and the spatial test's 600 m squares around it end by
- * 10.035 E.
+ * A spot for a test network that no other pipe comes near: screening searches every owner's
+ * pipes, and the test database keeps the rows of earlier tests and runs, so a test that
+ * asserts which owners are affected must build where nothing is. Tries random spots in the
+ * service area until no stored segment lies within `clear_m` of the network's extent
+ * (bounding-box test on the spatial index). Test files of one project run one after another, so no two tests race here.
  */
-export function screeningSpot(): [number, number] {
-  return [10.036 + Math.random() * 0.01, 52.555 + Math.random() * 0.09]
+export async function freeScreeningSpot(
+  sequelize: Sequelize,
+  clear_m = 500,
+): Promise<[number, number]> {
+  const t = crsTransform(25832)
+  for (let attempt = 0; attempt < 200; attempt++) {
+    const spot: [number, number] = [9.87 + Math.random() * 0.16, 52.56 + Math.random() * 0.08]
+    // Test networks run up to 60 m east and 210 m north of their origin.
+    const [x0, y0] = t.toGrid(spot)
+    const [x1, y1, x2, y2] = [x0 - clear_m, y0 - clear_m, x0 + 60 + clear_m, y0 + 210 + clear_m]
+    const box = `POLYGON((${x1} ${y1}, ${x2} ${y1}, ${x2} ${y2}, ${x1} ${y2}, ${x1} ${y1}))`
+    const rows = await sequelize.query<{ n: number }>(
+      'SELECT COUNT(*) AS n FROM pipe_segments WHERE MBRIntersects(geom, ST_GeomFromText(?, 25832))',
+      { replacements: [box], type: QueryTypes.SELECT },
+    )
+    if (Number(rows[0]?.n ?? 0) === 0) return spot
+  }
+  throw new Error('no free spot for a test network in the service area')
 }
 
 /** A short (about 34 m) east-west line starting at `origin`, shifted north by `i` × 5 m. */

@@ -6,7 +6,7 @@ import { expect } from 'vitest'
 import { crsTransform } from '../../shared/geo/crs.ts'
 import {
   featureCollection,
-  screeningSpot,
+  freeScreeningSpot,
   importFile,
   lineFeature,
   pe100Properties,
@@ -47,7 +47,7 @@ export const box = (origin: [number, number], x0: number, y0: number, x1: number
  * y = 200 m (60 m long), with one engineer each, as in the screening tests.
  */
 export async function buildTwoOwnerNetwork(app: TestApp) {
-  const origin = t.toGrid(screeningSpot()) as [number, number]
+  const origin = t.toGrid(await freeScreeningSpot(app.sequelize)) as [number, number]
   const water = await createTestOrganisation('network_owner', unique('Test Water'))
   const gas = await createTestOrganisation('network_owner', unique('Test Gas'))
   await gas.update({ medium: 'gas' })

@@ -9,7 +9,7 @@ import { pipeEngineInput } from '../../server/services/pipe-engine-input.ts'
 import type { PipeSegmentData } from '../../shared/types/network.ts'
 import {
   featureCollection,
-  screeningSpot,
+  freeScreeningSpot,
   importFile,
   lineFeature,
   pe100Properties,
@@ -51,7 +51,7 @@ const box = (origin: [number, number], x0: number, y0: number, x1: number, y1: n
  * east along y = 0 and a gas main along y = 200 m, each 60 m long, owned by new organisations.
  */
 async function buildNetwork() {
-  const origin = t.toGrid(screeningSpot()) as [number, number]
+  const origin = t.toGrid(await freeScreeningSpot(app.sequelize)) as [number, number]
   const water = await createTestOrganisation('network_owner', unique('Test Water'))
   const gas = await createTestOrganisation('network_owner', unique('Test Gas'))
   await gas.update({ medium: 'gas' })
