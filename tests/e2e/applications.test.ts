@@ -1,63 +1,26 @@
-import { mkdir, mkdtemp, rm } from 'node:fs/promises'
-import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { chromium, type BrowserContext, type Page } from 'playwright-core'
-
-// The same headless chromium flags as sign-in.test.ts (no outside hosts in the closed network).
-const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--headless=new',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-]
-const SCREENSHOT_DIR = join(process.cwd(), 'tests', 'artifacts', 'screenshots')
+import type { Browser } from 'playwright-core'
+import { SCREENSHOT_DIR, isoInDays, launchBrowser, openPage, signIn } from './browser.ts'
 
 const baseUrl = inject('baseUrl').replace(/\/$/, '')
 const applicant = inject('e2eUsers').find((u) => u.role === 'applicant')!
 
-let context: BrowserContext
-let userDataDir: string
+let browser: Browser
 
 beforeAll(async () => {
-  userDataDir = await mkdtemp(join(tmpdir(), 'trenchward-chromium-'))
-  await mkdir(SCREENSHOT_DIR, { recursive: true })
-  context = await chromium.launchPersistentContext(userDataDir, {
-    executablePath: '/usr/bin/chromium',
-    args: CHROMIUM_ARGS,
-    viewport: { width: 1440, height: 900 },
-    locale: 'en-GB',
-  })
+  browser = await launchBrowser()
 })
 
 afterAll(async () => {
-  await context?.close()
-  if (userDataDir) await rm(userDataDir, { recursive: true, force: true })
+  await browser?.close()
 })
-
-async function signIn(page: Page): Promise<void> {
-  await page.goto(`${baseUrl}/sign-in`, { waitUntil: 'networkidle' })
-  await page.locator('input[data-testid="sign-in-email"]').fill(applicant.email)
-  await page.locator('input[data-testid="sign-in-password"]').fill(applicant.password)
-  await page.locator('[data-testid="sign-in-submit"]').click()
-  await page.waitForURL((url) => url.pathname === '/')
-}
-
-/** A date some days from today as yyyy-mm-dd. */
-function isoInDays(days: number): string {
-  return new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10)
-}
 
 describe('applications in a real browser', () => {
   it('creates an application, draws an excavation on the map, submits it and sees the check', async () => {
-    await context.clearCookies()
-    const page = await context.newPage()
+    const { page, context } = await openPage(browser)
     try {
-      await signIn(page)
+      await signIn(page, baseUrl, applicant)
       await page.goto(`${baseUrl}/new-application`, { waitUntil: 'networkidle' })
       const canvas = page.locator('[data-testid="town-map"] canvas').first()
       await canvas.waitFor({ timeout: 15_000 })
@@ -170,7 +133,7 @@ describe('applications in a real browser', () => {
         .waitFor()
       await page.screenshot({ path: join(SCREENSHOT_DIR, 'applications-list.png') })
     } finally {
-      await page.close()
+      await context.close()
     }
   })
 })

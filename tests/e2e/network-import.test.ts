@@ -1,35 +1,21 @@
-import { mkdir, mkdtemp, rm, writeFile } from 'node:fs/promises'
+import { mkdtemp, rm, writeFile } from 'node:fs/promises'
 import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { chromium, type BrowserContext, type Page } from 'playwright-core'
+import type { Browser, Page } from 'playwright-core'
 import {
   featureCollection,
   lineFeature,
   lineNear,
   pe100Properties,
 } from '../helpers/network-fixtures.ts'
-
-// As in sign-in.test.ts, plus SwiftShader so the headless browser has WebGL for the network map.
-const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--headless=new',
-  '--disable-gpu',
-  '--enable-unsafe-swiftshader',
-  '--use-angle=swiftshader',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-]
-const SCREENSHOT_DIR = join(process.cwd(), 'tests', 'artifacts', 'screenshots')
+import { SCREENSHOT_DIR, launchBrowser, openPage, signIn } from './browser.ts'
 
 const baseUrl = inject('baseUrl').replace(/\/$/, '')
 const engineer = inject('e2eUsers').find((u) => u.role === 'asset_engineer')
 
-let context: BrowserContext
+let browser: Browser
 let workDir: string
 let page: Page
 
@@ -56,23 +42,12 @@ function networkFile(run: string): { text: string; refs: string[] } {
 
 beforeAll(async () => {
   workDir = await mkdtemp(join(tmpdir(), 'trenchward-e2e-network-'))
-  await mkdir(SCREENSHOT_DIR, { recursive: true })
-  context = await chromium.launchPersistentContext(join(workDir, 'profile'), {
-    executablePath: '/usr/bin/chromium',
-    args: CHROMIUM_ARGS,
-    viewport: { width: 1440, height: 900 },
-    locale: 'en-GB',
-  })
-  page = await context.newPage()
-  page.on('pageerror', (err) => console.error('page error:', err.message))
-  page.on('console', (msg) => {
-    if (msg.type() === 'error' || msg.type() === 'warning')
-      console.error(`console ${msg.type()}:`, msg.text())
-  })
+  browser = await launchBrowser()
+  page = (await openPage(browser)).page
 })
 
 afterAll(async () => {
-  await context?.close()
+  await browser?.close()
   if (workDir) await rm(workDir, { recursive: true, force: true })
 })
 
@@ -88,11 +63,7 @@ describe('network import in a real browser', () => {
     const file = join(workDir, `mains-${run}.geojson`)
     await writeFile(file, text)
 
-    await page.goto(`${baseUrl}/sign-in`, { waitUntil: 'networkidle' })
-    await page.locator('input[data-testid="sign-in-email"]').fill(engineer.email)
-    await page.locator('input[data-testid="sign-in-password"]').fill(engineer.password)
-    await page.locator('[data-testid="sign-in-submit"]').click()
-    await page.waitForURL((url) => url.pathname === '/')
+    await signIn(page, baseUrl, engineer)
 
     await page.goto(`${baseUrl}/network/import`, { waitUntil: 'networkidle' })
     await page.locator('[data-testid="import-drop-zone"]').waitFor()

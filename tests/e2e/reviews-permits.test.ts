@@ -1,27 +1,19 @@
 import { execFileSync } from 'node:child_process'
-import { mkdir, readdir, rm, writeFile } from 'node:fs/promises'
+import { readdir, rm, writeFile } from 'node:fs/promises'
 import { join } from 'node:path'
 import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core'
+import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { crsTransform } from '../../shared/geo/crs.ts'
 import { featureCollection, lineFeature, pe100Properties } from '../helpers/network-fixtures.ts'
+import {
+  ARTIFACTS_DIR as ARTIFACTS,
+  SCREENSHOT_DIR,
+  launchBrowser,
+  openPage,
+  signIn as signInAs,
+} from './browser.ts'
 
-// As in network-import.test.ts: no outside hosts, SwiftShader for the map.
-const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--headless=new',
-  '--disable-gpu',
-  '--enable-unsafe-swiftshader',
-  '--use-angle=swiftshader',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-]
-const ARTIFACTS = join(process.cwd(), 'tests', 'artifacts')
-const SCREENSHOT_DIR = join(ARTIFACTS, 'screenshots')
 const CLIENT = { 'X-Trenchward-Client': '1' }
 
 const baseUrl = inject('baseUrl').replace(/\/$/, '')
@@ -42,11 +34,10 @@ let browser: Browser
 const contexts: BrowserContext[] = []
 
 beforeAll(async () => {
-  await mkdir(SCREENSHOT_DIR, { recursive: true })
+  browser = await launchBrowser()
   for (const f of await readdir(SCREENSHOT_DIR)) {
     if (f.startsWith('permit-page-')) await rm(join(SCREENSHOT_DIR, f))
   }
-  browser = await chromium.launch({ executablePath: '/usr/bin/chromium', args: CHROMIUM_ARGS })
 })
 
 afterAll(async () => {
@@ -55,23 +46,13 @@ afterAll(async () => {
 })
 
 async function newPage(viewport = { width: 1440, height: 900 }): Promise<Page> {
-  const context = await browser.newContext({ viewport, locale: 'en-GB' })
+  const { page, context } = await openPage(browser, viewport)
   contexts.push(context)
-  const page = await context.newPage()
-  page.on('pageerror', (err) => console.error('page error:', err.message))
-  page.on('console', (msg) => {
-    if (msg.type() === 'error') console.error('console error:', msg.text())
-  })
   return page
 }
 
 async function signIn(page: Page, role: (typeof users)[number]['role']): Promise<void> {
-  const user = byRole(role)
-  await page.goto(`${baseUrl}/sign-in`, { waitUntil: 'networkidle' })
-  await page.locator('input[data-testid="sign-in-email"]').fill(user.email)
-  await page.locator('input[data-testid="sign-in-password"]').fill(user.password)
-  await page.locator('[data-testid="sign-in-submit"]').click()
-  await page.waitForURL((url) => url.pathname === '/')
+  await signInAs(page, baseUrl, byRole(role))
 }
 
 const shot = (page: Page, name: string, fullPage = false) =>

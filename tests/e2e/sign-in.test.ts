@@ -1,22 +1,7 @@
-import { mkdir, mkdtemp, rm } from 'node:fs/promises'
-import { tmpdir } from 'node:os'
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { chromium, type BrowserContext, type Page } from 'playwright-core'
-
-// Debian's chromium, run headless as root inside a closed network: these flags stop it from
-// reaching for outside hosts (see stack notes, addendum).
-const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--headless=new',
-  '--disable-gpu',
-  '--disable-quic',
-  '--no-first-run',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-]
-const SCREENSHOT_DIR = join(process.cwd(), 'tests', 'artifacts', 'screenshots')
+import type { Browser, Page } from 'playwright-core'
+import { SCREENSHOT_DIR, launchBrowser, openPage } from './browser.ts'
 
 /** What each role's home page shows that no other role's does. */
 const ROLE_HOME = {
@@ -38,32 +23,20 @@ function screenshotName(role: string): string {
   return name
 }
 
-let context: BrowserContext
-let userDataDir: string
+let browser: Browser
 
 beforeAll(async () => {
-  userDataDir = await mkdtemp(join(tmpdir(), 'trenchward-chromium-'))
-  await mkdir(SCREENSHOT_DIR, { recursive: true })
-  // A fresh profile per run; playwright takes it as the persistent context's directory
-  // (it refuses a --user-data-dir argument to launch()).
-  context = await chromium.launchPersistentContext(userDataDir, {
-    executablePath: '/usr/bin/chromium',
-    args: CHROMIUM_ARGS,
-    viewport: { width: 1440, height: 900 },
-    locale: 'en-GB',
-  })
+  browser = await launchBrowser()
 })
 
 afterAll(async () => {
-  await context?.close()
-  if (userDataDir) await rm(userDataDir, { recursive: true, force: true })
+  await browser?.close()
 })
 
-/** A new tab with no session left over from the previous test. */
+/** A new tab in a fresh context, so no session is left over from the previous test. */
 async function newPage(): Promise<{ page: Page; close: () => Promise<void> }> {
-  await context.clearCookies()
-  const page = await context.newPage()
-  return { page, close: () => page.close() }
+  const { page, context } = await openPage(browser)
+  return { page, close: () => context.close() }
 }
 
 describe('sign-in in a real browser', () => {
