@@ -15,6 +15,7 @@ import { OwnerReview } from './owner-review.ts'
 import { Permit } from './permit.ts'
 import { ReviewDecision } from './review-decision.ts'
 import { ReviewMessage } from './review-message.ts'
+import { ReviewMessageAttachment } from './review-message-attachment.ts'
 import { SegmentRerun } from './segment-rerun.ts'
 
 export {
@@ -31,7 +32,15 @@ export {
   User,
 }
 
-export { ConditionTemplate, OwnerReview, Permit, ReviewDecision, ReviewMessage, SegmentRerun }
+export {
+  ConditionTemplate,
+  OwnerReview,
+  Permit,
+  ReviewDecision,
+  ReviewMessage,
+  ReviewMessageAttachment,
+  SegmentRerun,
+}
 
 let initialised: Sequelize | undefined
 
@@ -67,6 +76,7 @@ export function initModels(sequelize: Sequelize): void {
   OwnerReview.initModel(sequelize)
   ReviewDecision.initModel(sequelize)
   ReviewMessage.initModel(sequelize)
+  ReviewMessageAttachment.initModel(sequelize)
   ConditionTemplate.initModel(sequelize)
   SegmentRerun.initModel(sequelize)
   Permit.initModel(sequelize)
@@ -74,6 +84,12 @@ export function initModels(sequelize: Sequelize): void {
   OwnerReview.belongsTo(Application, { foreignKey: 'applicationId', as: 'application' })
   ReviewDecision.belongsTo(User, { foreignKey: 'decidedByUserId', as: 'decidedBy' })
   ReviewMessage.belongsTo(User, { foreignKey: 'authorUserId', as: 'author' })
+  ReviewMessage.belongsToMany(ApplicationAttachment, {
+    through: ReviewMessageAttachment,
+    foreignKey: 'reviewMessageId',
+    otherKey: 'applicationAttachmentId',
+    as: 'attachments',
+  })
   SegmentRerun.belongsTo(User, { foreignKey: 'createdByUserId', as: 'createdBy' })
   Permit.belongsTo(User, { foreignKey: 'issuedByUserId', as: 'issuedBy' })
   Permit.belongsTo(Application, { foreignKey: 'applicationId', as: 'application' })

@@ -6,6 +6,7 @@ import type {
   NonAttribute,
   Sequelize,
 } from 'sequelize'
+import type { ApplicationAttachment } from './application-attachment.ts'
 import type { User } from './user.ts'
 
 /** A question from the owner's engineer or an answer from the applicant. */
@@ -18,10 +19,10 @@ export class ReviewMessage extends Model<
   declare kind: 'question' | 'answer'
   declare body: string
   declare authorUserId: number
-  declare attachmentRef: string | null
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
   declare author?: NonAttribute<User>
+  declare attachments?: NonAttribute<ApplicationAttachment[]>
 
   static initModel(sequelize: Sequelize): void {
     ReviewMessage.init(
@@ -31,7 +32,6 @@ export class ReviewMessage extends Model<
         kind: { type: DataTypes.ENUM('question', 'answer'), allowNull: false },
         body: { type: DataTypes.TEXT, allowNull: false },
         authorUserId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-        attachmentRef: { type: DataTypes.STRING(255), allowNull: true },
         createdAt: DataTypes.DATE(3),
         updatedAt: DataTypes.DATE(3),
       },

@@ -4,15 +4,23 @@ import type { ApplicantReviewDto } from '../../shared/types/reviews.ts'
 import { OPEN_REVIEW_STATES } from '../../shared/types/reviews.ts'
 import { addWorkingDays } from '../../shared/time/working-days.ts'
 import { config } from '../config.ts'
-import { conflict, domainRule, forbidden, notFound } from '../errors.ts'
+import { conflict, domainRule, forbidden, notFound, validationFailed } from '../errors.ts'
 import { enqueueMail } from '../mail/outbox.ts'
 import { answerReceivedMail } from '../mail/templates/answer-received.ts'
-import { Application, Organisation, OwnerReview, ReviewMessage, User } from '../models/index.ts'
+import {
+  Application,
+  ApplicationAttachment,
+  Organisation,
+  OwnerReview,
+  ReviewMessage,
+  ReviewMessageAttachment,
+  User,
+} from '../models/index.ts'
 import { canRead } from './applications.ts'
 import { recordAudit } from './audit.ts'
 import { organisationEmails } from './mail-recipients.ts'
 import { isoToday } from './review-clock.ts'
-import { storedConditions, toMessageDto } from './review-dto.ts'
+import { MESSAGE_INCLUDE, storedConditions, toMessageDto } from './review-dto.ts'
 import { lockApplication } from './review-progress.ts'
 
 /**
@@ -35,7 +43,7 @@ export async function listApplicationReviews(
   const messages = shown.length
     ? await ReviewMessage.findAll({
         where: { reviewId: shown.map((r) => r.id) },
-        include: [{ model: User, as: 'author', attributes: ['id', 'name'] }],
+        include: MESSAGE_INCLUDE,
         order: [['id', 'ASC']],
       })
     : []
@@ -97,14 +105,29 @@ export async function answerOwnerQuestion(
       { where: { id: r.id, version: r.version }, transaction },
     )
     if (changed === 0) throw conflict('The review changed meanwhile; reload and answer again')
-    await ReviewMessage.create(
+    const attachmentIds = input.attachmentIds ?? []
+    if (attachmentIds.length > 0) {
+      const found = await ApplicationAttachment.count({
+        where: { id: attachmentIds, applicationId },
+        transaction,
+      })
+      if (found !== attachmentIds.length) {
+        throw validationFailed([
+          { field: 'attachmentIds', message: 'Choose documents of this application only' },
+        ])
+      }
+    }
+    const message = await ReviewMessage.create(
       {
         reviewId: r.id,
         kind: 'answer',
         body: input.body,
         authorUserId: user.id,
-        attachmentRef: null,
       },
+      { transaction },
+    )
+    await ReviewMessageAttachment.bulkCreate(
+      attachmentIds.map((id) => ({ reviewMessageId: message.id, applicationAttachmentId: id })),
       { transaction },
     )
     const mail = answerReceivedMail({
@@ -131,7 +154,12 @@ export async function answerOwnerQuestion(
         action: 'review-question-answered',
         entityType: 'owner_review',
         entityId: r.id,
-        details: { applicationId, ownerOrganisationId: r.ownerOrganisationId, dueOn },
+        details: {
+          applicationId,
+          ownerOrganisationId: r.ownerOrganisationId,
+          dueOn,
+          attachmentIds,
+        },
       },
       transaction,
     )

@@ -5,6 +5,7 @@ import type {
   ReviewMessageDto,
   ReviewSummaryDto,
 } from '../../shared/types/reviews.ts'
+import type { Includeable } from 'sequelize'
 import type {
   Application,
   Organisation,
@@ -12,6 +13,7 @@ import type {
   ReviewDecision,
   ReviewMessage,
 } from '../models/index.ts'
+import { ApplicationAttachment, User } from '../models/index.ts'
 import { reviewClock } from './review-clock.ts'
 
 export function parseJson<T>(v: unknown): T {
@@ -64,13 +66,31 @@ export function toDecisionDto(d: ReviewDecision): ReviewDecisionDto {
   }
 }
 
+/** What a message is loaded with for `toMessageDto`: its author and its documents. */
+export const MESSAGE_INCLUDE: Includeable[] = [
+  { model: User, as: 'author', attributes: ['id', 'name'] },
+  {
+    model: ApplicationAttachment,
+    as: 'attachments',
+    attributes: ['id', 'applicationId', 'kind', 'originalFilename'],
+    through: { attributes: [] },
+  },
+]
+
 export function toMessageDto(m: ReviewMessage): ReviewMessageDto {
   return {
     id: m.id,
     kind: m.kind,
     body: m.body,
     author: { id: m.authorUserId, name: m.author?.name ?? '' },
-    attachmentRef: m.attachmentRef,
+    attachments: (m.attachments ?? [])
+      .map((a) => ({
+        id: a.id,
+        applicationId: a.applicationId,
+        kind: a.kind,
+        filename: a.originalFilename,
+      }))
+      .sort((x, y) => x.id - y.id),
     createdAt: m.createdAt.toISOString(),
   }
 }

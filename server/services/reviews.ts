@@ -38,6 +38,7 @@ import {
   parseJson,
   storedConditions,
   toDecisionDto,
+  MESSAGE_INCLUDE,
   toMessageDto,
   toReviewSummary,
 } from './review-dto.ts'
@@ -250,7 +251,7 @@ export async function getReviewDetail(
     }),
     ReviewMessage.findAll({
       where: { reviewId: r.id },
-      include: [{ model: User, as: 'author', attributes: ['id', 'name'] }],
+      include: MESSAGE_INCLUDE,
       order: [['id', 'ASC']],
     }),
     listConditionTemplates(user),
@@ -387,7 +388,6 @@ export async function decideReview(
           kind: 'question',
           body: input.question,
           authorUserId: user.id,
-          attachmentRef: null,
         },
         { transaction },
       )

@@ -64,11 +64,20 @@ export const reviewDecisionSchema = z.discriminatedUnion('decision', [
 ])
 export type ReviewDecisionInput = z.infer<typeof reviewDecisionSchema>
 
+/** How many documents one answer may carry. */
+export const MAX_ANSWER_ATTACHMENTS = 10
+
 /** The applicant's answer to an owner's question. */
 export const reviewAnswerSchema = z.object({
   body: z.string().trim().min(1, 'Write your answer').max(5000),
+  /** Documents already uploaded to the application that go with the answer. */
+  attachmentIds: z
+    .array(z.number().int().positive())
+    .max(MAX_ANSWER_ATTACHMENTS, `At most ${MAX_ANSWER_ATTACHMENTS} documents per answer`)
+    .refine((ids) => new Set(ids).size === ids.length, 'Each document once')
+    .default([]),
 })
-export type ReviewAnswerInput = z.infer<typeof reviewAnswerSchema>
+export type ReviewAnswerInput = z.input<typeof reviewAnswerSchema>
 
 /** Re-run one affected segment with corrected design data (the engine's pipe input). */
 export const segmentRerunSchema = z.object({

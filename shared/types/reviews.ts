@@ -1,5 +1,6 @@
 import type { CombinedStatement } from './coordination.ts'
 import type { ApplicationDto, ApplicationStatus } from './application.ts'
+import type { AttachmentKind } from './attachments.ts'
 import type { ConditionTemplateDto } from './condition-templates.ts'
 import type { AssessmentInput, AssessmentResult, Verdict } from '../statics/types.ts'
 
@@ -93,13 +94,21 @@ export interface ReviewDecisionDto {
   superseded: boolean
 }
 
+/** A document that went with an answer: enough to name it and fetch it by id. */
+export interface MessageAttachmentDto {
+  id: number
+  applicationId: number
+  kind: AttachmentKind
+  filename: string
+}
+
 export interface ReviewMessageDto {
   id: number
   kind: 'question' | 'answer'
   body: string
   author: { id: number; name: string }
-  /** Reserved for attachments; null until attachments exist. */
-  attachmentRef: string | null
+  /** The application's documents sent with this message (answers only). */
+  attachments: MessageAttachmentDto[]
   createdAt: string
 }
 

@@ -31,12 +31,12 @@ export const useApplicationReviewsStore = defineStore('application-reviews', () 
     history.value = h
   }
 
-  async function answer(reviewId: number, body: string): Promise<void> {
+  async function answer(reviewId: number, body: string, attachmentIds: number[]): Promise<void> {
     const id = applicationId.value
     if (id === null) return
     answering.value = true
     try {
-      reviews.value = await answerReview(id, reviewId, { body })
+      reviews.value = await answerReview(id, reviewId, { body, attachmentIds })
       history.value = await fetchApplicationHistory(id)
     } finally {
       answering.value = false
