@@ -14,6 +14,7 @@ import { Organisation, User, initModels } from '../server/models/index.ts'
 import { importLocalFile } from '../server/services/import/import-local-file.ts'
 import { insertStreets } from '../server/services/streets.ts'
 import { createUser } from '../server/services/users.ts'
+import { loadDemoApplications } from './demo/load-applications.ts'
 import type { OrganisationKind, Role } from '../shared/types/roles.ts'
 
 interface DemoPeople {
@@ -91,8 +92,10 @@ try {
       )
       segments += job.segmentsInserted
     }
+    const stories = await loadDemoApplications(sequelize, demoDir)
+    const applications = Object.values(stories).reduce((a, b) => a + b, 0)
     console.error(
-      `[seed-demo] loaded ${people.organisations.length} organisations, ${people.users.length} users, ${n} streets, ${segments} pipe segments`,
+      `[seed-demo] loaded ${people.organisations.length} organisations, ${people.users.length} users, ${n} streets, ${segments} pipe segments, ${applications} applications (${stories.granted} granted)`,
     )
   }
 } finally {

@@ -3,9 +3,9 @@ import type { Sequelize, Transaction } from 'sequelize'
 import type { ActivityInput } from '../../shared/schemas/application.ts'
 import { formatVerificationCode } from '../../shared/schemas/verification.ts'
 import { STANDARD_CAUTION } from '../../shared/statics/index.ts'
-import type { CheckId, Verdict } from '../../shared/statics/types.ts'
+import type { CheckId } from '../../shared/statics/types.ts'
 import { REVIEW_STATE_LABELS } from '../../shared/types/reviews.ts'
-import { CHECK_LABELS, VERDICT_RANK } from '../../shared/types/screening.ts'
+import { CHECK_LABELS, countedVerdict, VERDICT_RANK } from '../../shared/types/screening.ts'
 import { config } from '../config.ts'
 import type { GridXY, MapExtractData, MapWorks } from '../pdf/map-extract.ts'
 import { mapBounds } from '../pdf/map-extract.ts'
@@ -170,11 +170,16 @@ export async function permitDocumentData(
   const screening = new Map<number, PermitDocumentData['screening'][number] & { rank: number }>()
   for (const s of assessments) {
     const prev = screening.get(s.ownerOrganisationId)
-    const rank = VERDICT_RANK[s.verdict as Verdict]
+    // The verdict that counts: the works alone or together with other works at the same time.
+    const verdict = countedVerdict(
+      s.verdict,
+      s.combinedVerdict ? { verdictCombined: s.combinedVerdict } : null,
+    )
+    const rank = VERDICT_RANK[verdict]
     const here = {
       ownerName: ownerName.get(s.ownerOrganisationId) ?? '',
       segmentCount: (prev?.segmentCount ?? 0) + 1,
-      worstVerdict: s.verdict,
+      worstVerdict: verdict,
       governingCheck: s.governingCheck
         ? (CHECK_LABELS[s.governingCheck as CheckId] ?? s.governingCheck)
         : null,

@@ -10,7 +10,7 @@ import {
 import { STANDARD_CAUTION } from '../../shared/statics/index.ts'
 import type { AssessmentResult, Verdict } from '../../shared/statics/types.ts'
 import type { PipeMedium } from '../../shared/types/network.ts'
-import { CHECK_LABELS, VERDICT_RANK } from '../../shared/types/screening.ts'
+import { CHECK_LABELS, countedVerdict, VERDICT_RANK } from '../../shared/types/screening.ts'
 import type {
   AffectedPipeForApplicant,
   ApplicationScreeningDto,
@@ -109,8 +109,10 @@ export async function applicantScreening(
   const ownerViews: OwnerScreening[] = owners.map((o) => {
     const affected = byOwner.get(o.id) ?? []
     let verdict: Verdict | 'not-affected' = 'not-affected'
-    for (const p of affected)
-      if (VERDICT_RANK[p.verdict] > VERDICT_RANK[verdict]) verdict = p.verdict
+    for (const p of affected) {
+      const counted = countedVerdict(p.verdict, p.combined)
+      if (VERDICT_RANK[counted] > VERDICT_RANK[verdict]) verdict = counted
+    }
     if (VERDICT_RANK[verdict] > VERDICT_RANK[worst]) worst = verdict
     return { organisation: { id: o.id, name: o.name, medium: o.medium }, verdict, affected }
   })

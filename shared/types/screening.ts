@@ -31,6 +31,7 @@ export interface AffectedPipeForApplicant {
 
 export interface OwnerScreening {
   organisation: { id: number; name: string; medium: string | null }
+  /** The worst counted verdict of the owner's pipes (works alone or with other works at once). */
   verdict: Verdict | 'not-affected'
   affected: AffectedPipeForApplicant[]
 }
@@ -65,4 +66,18 @@ export const VERDICT_RANK: Record<Verdict | 'not-affected', number> = {
   clear: 1,
   conditional: 2,
   critical: 3,
+}
+
+/**
+ * The verdict that counts for a pipe: the worse of the works alone and the works together with
+ * other works planned at the same time (when any overlap).
+ */
+export function countedVerdict(
+  verdict: Verdict,
+  combined: { verdictCombined: Verdict } | null | undefined,
+): Verdict {
+  if (!combined) return verdict
+  return VERDICT_RANK[combined.verdictCombined] > VERDICT_RANK[verdict]
+    ? combined.verdictCombined
+    : verdict
 }

@@ -176,6 +176,9 @@ describe('combined screening of concurrent works', () => {
       (o: { organisation: { id: number } }) => o.organisation.id === net.water.id,
     )
     expect(water.affected[0].verdict).toBe('clear')
+    // What counts for the owner and the whole application is the worse of alone and together.
+    expect(water.verdict).toBe('critical')
+    expect(view.body.verdict).toBe('critical')
     expect(water.affected[0].combined).toEqual({
       verdictAlone: 'clear',
       verdictCombined: 'critical',
