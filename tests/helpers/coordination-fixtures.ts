@@ -1,29 +1,17 @@
 import { expect } from 'vitest'
 import type { StoredCombinedScreening } from '../../shared/types/coordination.ts'
 import { Assessment } from '../../server/models/index.ts'
+import { LEG_LOAD_KN, craneAt } from './crane-fixtures.ts'
 import { at, reviewIdFor } from './review-fixtures.ts'
 import type { TestApp } from './test-app.ts'
 
 type Agent = ReturnType<TestApp['agent']>
 
 /** A crane on one 1.5 m mat centred `dx_m` along the water main, right above it. */
-export const craneOver = (origin: [number, number], dx_m: number, load_kN: number) => ({
-  kind: 'crane',
-  label: 'Mobile crane',
-  setup: 'single-pad',
-  geometry: { type: 'Point', coordinates: at(origin, dx_m, 0) },
-  legLoad_kN: load_kN,
-  matLength_m: 1.5,
-  matWidth_m: 1.5,
-  matRotation_deg: 0,
-})
+export const craneOver = (origin: [number, number], dx_m: number, load_kN: number) =>
+  craneAt(at(origin, dx_m, 0) as [number, number], load_kN)
 
-/**
- * Chosen with the engine (see the preconditions in coordination-screening.test.ts): one such
- * crane keeps the water main clear (buckling about 0.9 of capacity), two mats side by side
- * make it critical.
- */
-export const LEG_LOAD_KN = 1300
+export { LEG_LOAD_KN }
 
 /** A complete draft with these activities and dates; returns its id. */
 export async function draftWorks(
