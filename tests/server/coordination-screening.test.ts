@@ -158,6 +158,8 @@ describe('combined screening of concurrent works', () => {
       (c: { kind: string; applications: { applicationId: number }[] }) =>
         c.kind === 'combined-load' && c.applications.some((x) => x.applicationId === a.id),
     )
+    // The segment's line comes along for the works map: the 60 m main, in lon/lat.
+    expect(mine[0].segment.geometry.coordinates).toHaveLength(2)
     expect(mine).toEqual([
       {
         kind: 'combined-load',
@@ -185,6 +187,7 @@ describe('combined screening of concurrent works', () => {
           id: expect.any(Number),
           owner: { id: net.water.id, name: net.water.name },
           medium: 'water',
+          geometry: { type: 'LineString', coordinates: expect.any(Array) },
         },
         verdictAlone: 'clear',
         verdictCombined: 'critical',

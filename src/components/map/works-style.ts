@@ -34,14 +34,16 @@ export function createSelectedWorksStyle(): (feature: FeatureLike) => Style[] {
     }),
     zIndex: 401,
   })
-  const label = (text: string) =>
+  // Labels of neighbouring works alternate above and below their marks, so two works a few
+  // metres apart both keep a readable label; the layer's declutter drops any further overlap.
+  const label = (text: string, below: boolean) =>
     new Style({
       text: new Text({
         text,
         font: '700 12px Lato, sans-serif',
         fill: new Fill({ color: '#1b2428' }),
         stroke: new Stroke({ color: '#fff', width: 4 }),
-        offsetY: -18,
+        offsetY: below ? 20 : -18,
         overflow: true,
       }),
       zIndex: 402,
@@ -51,7 +53,7 @@ export function createSelectedWorksStyle(): (feature: FeatureLike) => Style[] {
     const ref = feature.get('reference') as string | undefined
     if (!ref) return [halo, body]
     let l = labels.get(ref)
-    if (!l) labels.set(ref, (l = label(ref)))
+    if (!l) labels.set(ref, (l = label(ref, labels.size % 2 === 1)))
     return [halo, body, l]
   }
 }
