@@ -1,13 +1,12 @@
 import { randomUUID } from 'node:crypto'
-import { readdir, rm } from 'node:fs/promises'
 import { join } from 'node:path'
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import type { Browser, BrowserContext, Page } from 'playwright-core'
+import { describe, expect, inject, it } from 'vitest'
+import type { Page } from 'playwright-core'
 import { crsTransform } from '../../shared/geo/crs.ts'
 import { craneAt } from '../helpers/crane-fixtures.ts'
 import { featureCollection, lineFeature, pe100Properties } from '../helpers/network-fixtures.ts'
 import { CLIENT, importNetwork, json, settleMap } from './api-data.ts'
-import { SCREENSHOT_DIR, isoInDays, launchBrowser, openPage, signIn } from './browser.ts'
+import { SCREENSHOT_DIR, isoInDays, signIn, useBrowserPages } from './browser.ts'
 
 // Issue 7: the permit officer's works map with the clash list, the timeline and the day slider.
 
@@ -27,26 +26,7 @@ const origin = t.toGrid([
 const at = (dx: number, dy: number) =>
   t.toLonLat([origin[0] + dx, origin[1] + dy]) as [number, number]
 
-let browser: Browser
-const contexts: BrowserContext[] = []
-
-beforeAll(async () => {
-  browser = await launchBrowser()
-  for (const f of await readdir(SCREENSHOT_DIR)) {
-    if (f.startsWith('coordination-')) await rm(join(SCREENSHOT_DIR, f))
-  }
-})
-
-afterAll(async () => {
-  for (const c of contexts) await c.close()
-  await browser?.close()
-})
-
-async function newPage(viewport = { width: 1440, height: 900 }): Promise<Page> {
-  const { page, context } = await openPage(browser, viewport)
-  contexts.push(context)
-  return page
-}
+const { newPage } = useBrowserPages('coordination-')
 
 const shot = (page: Page, name: string, fullPage = true) =>
   page.screenshot({ path: join(SCREENSHOT_DIR, `coordination-${name}.png`), fullPage })

@@ -1,18 +1,17 @@
 import { execFileSync } from 'node:child_process'
-import { readdir, rm, writeFile } from 'node:fs/promises'
+import { writeFile } from 'node:fs/promises'
 import { join } from 'node:path'
 import { randomUUID } from 'node:crypto'
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import type { Browser, BrowserContext, Page } from 'playwright-core'
+import { describe, expect, inject, it } from 'vitest'
+import type { Page } from 'playwright-core'
 import { crsTransform } from '../../shared/geo/crs.ts'
 import { featureCollection, lineFeature, pe100Properties } from '../helpers/network-fixtures.ts'
 import { CLIENT, importNetwork as importNetworkAt, json, settleMap } from './api-data.ts'
 import {
   ARTIFACTS_DIR as ARTIFACTS,
   SCREENSHOT_DIR,
-  launchBrowser,
-  openPage,
   signIn as signInAs,
+  useBrowserPages,
 } from './browser.ts'
 
 const baseUrl = inject('baseUrl').replace(/\/$/, '')
@@ -29,26 +28,7 @@ const at = (dx: number, dy: number) => t.toLonLat([origin[0] + dx, origin[1] + d
 const day = (offset: number) =>
   new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10)
 
-let browser: Browser
-const contexts: BrowserContext[] = []
-
-beforeAll(async () => {
-  browser = await launchBrowser()
-  for (const f of await readdir(SCREENSHOT_DIR)) {
-    if (f.startsWith('permit-page-')) await rm(join(SCREENSHOT_DIR, f))
-  }
-})
-
-afterAll(async () => {
-  for (const c of contexts) await c.close()
-  await browser?.close()
-})
-
-async function newPage(viewport = { width: 1440, height: 900 }): Promise<Page> {
-  const { page, context } = await openPage(browser, viewport)
-  contexts.push(context)
-  return page
-}
+const { newPage } = useBrowserPages('permit-page-')
 
 async function signIn(page: Page, role: (typeof users)[number]['role']): Promise<void> {
   await signInAs(page, baseUrl, byRole(role))
