@@ -141,12 +141,14 @@ describe('works map for the permit officer', () => {
     expect(await clash.getAttribute('class')).toContain('clash-list__item--selected')
     await shot(officer, 'day-11')
 
-    // Day 13: A has ended, so the clash drops out of the list; B alone is still on site.
+    // Day 13: A has ended, so the clash is over; B alone is still on site.
     await officer.keyboard.press('ArrowRight')
     await officer.keyboard.press('ArrowRight')
     await officer.waitForTimeout(400)
     expect(await shownDay()).toBe(isoInDays(13))
-    expect(await clash.count()).toBe(0)
+    // The picked clash stays listed, marked as not on this day, until it is let go.
+    expect(await clash.getAttribute('data-on-day')).toBe('false')
+    expect(await clash.textContent()).toContain('Not on ')
     expect(
       await officer
         .locator(`[data-testid="timeline-row"][data-application-id="${a.id}"]`)
@@ -154,6 +156,9 @@ describe('works map for the permit officer', () => {
     ).toContain('works-timeline__row--off-day')
     expect(await officer.locator('[data-testid="works-summary"]').textContent()).toMatch(/^On /)
     await shot(officer, 'day-13')
+    await clash.locator('button').first().click()
+    await officer.waitForTimeout(300)
+    expect(await clash.count()).toBe(0)
 
     // The reference leads to the decision page.
     await officer.locator(`[data-testid="timeline-row"][data-application-id="${b.id}"] a`).click()
