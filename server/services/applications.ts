@@ -21,6 +21,7 @@ import { Activity, Application, Organisation, User } from '../models/index.ts'
 import { recordAudit } from './audit.ts'
 import { screenApplication } from './screening.ts'
 import { rescreenCombined } from './combined-screening.ts'
+import { screeningTransaction } from './segment-locks.ts'
 import { openOwnerReviews } from './review-opening.ts'
 import { applicantScreening } from './screening-view.ts'
 import type { ApplicationScreeningDto } from '../../shared/types/screening.ts'
@@ -272,7 +273,7 @@ export async function submitApplication(
   now = new Date(),
 ): Promise<ApplicationDto> {
   if (user.role !== 'applicant') throw forbidden()
-  await sequelize.transaction(async (transaction) => {
+  await screeningTransaction(sequelize, async (transaction) => {
     const a = await loadForUser(id, user, transaction)
     if (a.status !== 'draft') throw domainRule('This application has already been submitted')
     if (a.version !== expectedVersion) {
@@ -330,7 +331,7 @@ export async function withdrawApplication(
   reason: string | undefined,
 ): Promise<ApplicationDto> {
   if (user.role !== 'applicant') throw forbidden()
-  await sequelize.transaction(async (transaction) => {
+  await screeningTransaction(sequelize, async (transaction) => {
     const a = await loadForUser(id, user, transaction)
     if (!WITHDRAWABLE.includes(a.status))
       throw domainRule(`An application that is ${a.status} cannot be withdrawn`)

@@ -28,6 +28,7 @@ import { Activity, Assessment, Organisation } from '../models/index.ts'
 import { liveWorks } from './live-works.ts'
 import type { LiveWorks } from './live-works.ts'
 import { organisationEmails, roleEmails } from './mail-recipients.ts'
+import { lockSegments } from './segment-locks.ts'
 import { isoToday } from './review-clock.ts'
 
 function parseJson<T>(v: unknown): T {
@@ -130,6 +131,10 @@ async function worksOf(
  *
  * A granted permit whose counted verdict gets worse is reported to the permit office and the
  * owner's engineers by mail, in the same transaction.
+ *
+ * Concurrency: the segments are locked (by id) before the other applications' rows are read,
+ * and the caller's transaction is a `screeningTransaction` (READ COMMITTED), so two changes
+ * beside the same pipe re-screen one after the other and the later one sees the earlier.
  */
 export async function rescreenCombined(
   sequelize: Sequelize,
@@ -145,6 +150,7 @@ export async function rescreenCombined(
   })
   const segmentIds = [...new Set(own.map((r) => r.pipeSegmentId))]
   if (!segmentIds.length) return { segments: 0, pairs: 0, worsened: [] }
+  await lockSegments(sequelize, segmentIds, transaction)
 
   const rows = await Assessment.findAll({
     where: { pipeSegmentId: { [Op.in]: segmentIds } },

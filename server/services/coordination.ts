@@ -27,6 +27,7 @@ import { config } from '../config.ts'
 import { forbidden } from '../errors.ts'
 import { Activity, Assessment, Organisation, User } from '../models/index.ts'
 import { liveWorks } from './live-works.ts'
+import { segmentLines } from './reviews.ts'
 import type { LiveWorks } from './live-works.ts'
 import { isoToday } from './review-clock.ts'
 import { activitiesNearStreets } from './street-proximity.ts'
@@ -224,6 +225,7 @@ export async function coordinationClashes(
           id: row.pipeSegmentId,
           owner: { id: row.ownerOrganisationId, name: owner },
           medium: row.medium as PipeMedium,
+          geometry: null,
         },
         verdictAlone: worstAlone,
         verdictCombined: worst.verdict,
@@ -237,6 +239,13 @@ export async function coordinationClashes(
           stored.result,
         ),
       })
+    }
+
+    const lines = await segmentLines(sequelize, segmentIds)
+    for (const item of items) {
+      if (item.kind !== 'combined-load') continue
+      const line = lines.get(item.segment.id)
+      if (line) item.segment.geometry = { type: 'LineString', coordinates: line }
     }
 
     const near = await activitiesNearStreets(sequelize, ids, SAME_STREET_DISTANCE_M, ['excavation'])

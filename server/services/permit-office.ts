@@ -42,6 +42,7 @@ import { parseJson, storedConditions } from './review-dto.ts'
 import { activityFeatures, segmentLines } from './reviews.ts'
 import { lockApplication } from './review-progress.ts'
 import { rescreenCombined } from './combined-screening.ts'
+import { screeningTransaction } from './segment-locks.ts'
 
 const QUEUE_STATUSES: Record<'open' | 'decided' | 'all', ApplicationStatus[]> = {
   open: ['submitted', 'with_owners', 'ready_for_decision'],
@@ -284,7 +285,7 @@ export async function grantPermit(
 ): Promise<PermitDto> {
   officer(user)
   const today = isoToday(now)
-  const permitId = await sequelize.transaction(async (transaction) => {
+  const permitId = await screeningTransaction(sequelize, async (transaction) => {
     const a = await lockApplication(id, transaction)
     if (!a || a.status === 'draft') throw notFound('application', id)
     if (a.status !== 'ready_for_decision') {
@@ -405,7 +406,7 @@ export async function refuseApplication(
 ): Promise<ApplicationDto> {
   officer(user)
   const cfg = config()
-  await sequelize.transaction(async (transaction) => {
+  await screeningTransaction(sequelize, async (transaction) => {
     const a = await lockApplication(id, transaction)
     if (!a || a.status === 'draft') throw notFound('application', id)
     if (!['submitted', 'with_owners', 'ready_for_decision'].includes(a.status)) {

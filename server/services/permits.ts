@@ -23,6 +23,7 @@ import { isoToday } from './review-clock.ts'
 import { parseJson } from './review-dto.ts'
 import { lockApplication } from './review-progress.ts'
 import { rescreenCombined } from './combined-screening.ts'
+import { screeningTransaction } from './segment-locks.ts'
 
 const withIssuer = { include: [{ model: User, as: 'issuedBy', attributes: ['id', 'name'] }] }
 const issuerOf = (p: Permit) => (p as Permit & { issuedBy?: User }).issuedBy ?? null
@@ -121,7 +122,7 @@ async function reissue(
   },
   now: Date,
 ): Promise<PermitDto> {
-  const newId = await sequelize.transaction(async (transaction) => {
+  const newId = await screeningTransaction(sequelize, async (transaction) => {
     const { permit, application } = await lockCurrent(id, transaction)
     const validTo = change.validTo ?? permit.validTo
     if (change.kind === 'extended') {
@@ -251,7 +252,7 @@ export async function revokePermit(
 ): Promise<PermitDto> {
   officer(user)
   const cfg = config()
-  await sequelize.transaction(async (transaction) => {
+  await screeningTransaction(sequelize, async (transaction) => {
     const { permit, application } = await lockCurrent(id, transaction)
     const before = effectivePermitStatus(permit, isoToday(now))
     await permit.update(

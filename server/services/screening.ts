@@ -17,6 +17,7 @@ import { Assessment, PipeSegment } from '../models/index.ts'
 import { segmentData } from './network-segments.ts'
 import { pipeEngineInput } from './pipe-engine-input.ts'
 import { BASELINE_ENGINE_VERSION } from './pipe-baseline.ts'
+import { lockSegments } from './segment-locks.ts'
 import { findSegmentsNear } from './spatial-query.ts'
 
 /** One segment's screening outcome before it is stored. */
@@ -117,7 +118,11 @@ export async function screenActivities(
 
 /**
  * Screen a submitted application and store one Assessment per affected segment (replacing any
- * earlier screening of it), inside the caller's transaction.
+ * earlier screening of it), inside the caller's transaction (a `screeningTransaction`).
+ *
+ * Before it writes, it locks every segment it affects and every segment of its earlier
+ * assessments (by id), and holds them until commit: another submission beside the same pipe
+ * waits, then its combined screening sees this one.
  */
 export async function screenApplication(
   sequelize: Sequelize,
@@ -126,6 +131,16 @@ export async function screenApplication(
   transaction: Transaction,
 ): Promise<{ affected: number; worst: Verdict | 'not-affected' }> {
   const { segments } = await screenActivities(sequelize, activities)
+  const earlier = await Assessment.findAll({
+    where: { applicationId },
+    attributes: ['pipeSegmentId'],
+    transaction,
+  })
+  await lockSegments(
+    sequelize,
+    [...segments.map((s) => s.segmentId), ...earlier.map((r) => r.pipeSegmentId)],
+    transaction,
+  )
   await Assessment.destroy({ where: { applicationId }, transaction })
   let worst: Verdict | 'not-affected' = 'not-affected'
   for (const s of segments) {

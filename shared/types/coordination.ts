@@ -88,7 +88,13 @@ export type Clash =
       from: string
       to: string
       applications: ClashApplication[]
-      segment: { id: number; owner: { id: number; name: string }; medium: PipeMedium }
+      segment: {
+        id: number
+        owner: { id: number; name: string }
+        medium: PipeMedium
+        /** The segment's centre line, WGS84 lon/lat (for the works map). */
+        geometry: { type: 'LineString'; coordinates: [number, number][] } | null
+      }
       /** Worst verdict of any one of the applications alone on this segment. */
       verdictAlone: Verdict
       verdictCombined: Verdict

@@ -148,7 +148,7 @@ export const routes: RouteRecordRaw[] = [
       {
         path: 'works-map',
         name: 'works-map',
-        component: BeingBuiltPage,
+        component: () => import('../pages/WorksMapPage.vue'),
         meta: {
           title: 'Works map',
           navIcon: matMap,

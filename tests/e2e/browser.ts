@@ -1,6 +1,7 @@
-import { mkdir } from 'node:fs/promises'
+import { mkdir, readdir, rm } from 'node:fs/promises'
 import { join } from 'node:path'
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core'
+import { afterAll, beforeAll } from 'vitest'
 
 /**
  * Debian's chromium, run headless as root inside a closed network: these flags stop it from
@@ -60,4 +61,33 @@ export async function signIn(
 /** A date some days from today as yyyy-mm-dd. */
 export function isoInDays(days: number): string {
   return new Date(Date.now() + days * 86_400_000).toISOString().slice(0, 10)
+}
+
+/**
+ * One browser for a test file: launched before its tests, with screenshots whose names start
+ * with `screenshotPrefix` cleared first; every page from `newPage` gets its own context, and
+ * all of them and the browser are closed after the file's tests.
+ */
+export function useBrowserPages(screenshotPrefix: string): {
+  newPage: (viewport?: { width: number; height: number }) => Promise<Page>
+} {
+  let browser: Browser | undefined
+  const contexts: BrowserContext[] = []
+  beforeAll(async () => {
+    browser = await launchBrowser()
+    for (const f of await readdir(SCREENSHOT_DIR)) {
+      if (f.startsWith(screenshotPrefix)) await rm(join(SCREENSHOT_DIR, f))
+    }
+  })
+  afterAll(async () => {
+    for (const c of contexts) await c.close()
+    await browser?.close()
+  })
+  return {
+    newPage: async (viewport = DESKTOP_VIEWPORT) => {
+      const { page, context } = await openPage(browser!, viewport)
+      contexts.push(context)
+      return page
+    },
+  }
 }

@@ -1,20 +1,18 @@
 import { execFileSync } from 'node:child_process'
-import { readdir, rm, writeFile } from 'node:fs/promises'
+import { writeFile } from 'node:fs/promises'
 import { join } from 'node:path'
 import { randomUUID } from 'node:crypto'
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import type { Browser, BrowserContext, Page } from 'playwright-core'
+import { describe, expect, inject, it } from 'vitest'
+import type { Page } from 'playwright-core'
 import { crsTransform } from '../../shared/geo/crs.ts'
 import { featureCollection, lineFeature, pe100Properties } from '../helpers/network-fixtures.ts'
+import { CLIENT, importNetwork as importNetworkAt, json, settleMap } from './api-data.ts'
 import {
   ARTIFACTS_DIR as ARTIFACTS,
   SCREENSHOT_DIR,
-  launchBrowser,
-  openPage,
   signIn as signInAs,
+  useBrowserPages,
 } from './browser.ts'
-
-const CLIENT = { 'X-Trenchward-Client': '1' }
 
 const baseUrl = inject('baseUrl').replace(/\/$/, '')
 const users = inject('e2eUsers')
@@ -30,85 +28,16 @@ const at = (dx: number, dy: number) => t.toLonLat([origin[0] + dx, origin[1] + d
 const day = (offset: number) =>
   new Date(Date.now() + offset * 86_400_000).toISOString().slice(0, 10)
 
-let browser: Browser
-const contexts: BrowserContext[] = []
-
-beforeAll(async () => {
-  browser = await launchBrowser()
-  for (const f of await readdir(SCREENSHOT_DIR)) {
-    if (f.startsWith('permit-page-')) await rm(join(SCREENSHOT_DIR, f))
-  }
-})
-
-afterAll(async () => {
-  for (const c of contexts) await c.close()
-  await browser?.close()
-})
-
-async function newPage(viewport = { width: 1440, height: 900 }): Promise<Page> {
-  const { page, context } = await openPage(browser, viewport)
-  contexts.push(context)
-  return page
-}
+const { newPage } = useBrowserPages('permit-page-')
 
 async function signIn(page: Page, role: (typeof users)[number]['role']): Promise<void> {
   await signInAs(page, baseUrl, byRole(role))
 }
 
+const importNetwork = (page: Page, text: string) => importNetworkAt(page, baseUrl, text)
+
 const shot = (page: Page, name: string, fullPage = false) =>
   page.screenshot({ path: join(SCREENSHOT_DIR, `reviews-${name}.png`), fullPage })
-
-async function settleMap(page: Page): Promise<void> {
-  await page.locator('[data-testid="town-map"] canvas').first().waitFor({ timeout: 15_000 })
-  await page.waitForLoadState('networkidle')
-  await page.waitForTimeout(800)
-}
-
-async function json<T>(res: {
-  ok(): boolean
-  status(): number
-  text(): Promise<string>
-}): Promise<T> {
-  const text = await res.text()
-  if (!res.ok()) throw new Error(`${res.status()}: ${text}`)
-  return JSON.parse(text) as T
-}
-
-/** Upload, validate and commit a GeoJSON network through the engineer's session. */
-async function importNetwork(page: Page, text: string): Promise<void> {
-  const api = `${baseUrl}/api/network/imports`
-  const job = await json<{ id: number }>(
-    await page.request.post(api, {
-      headers: CLIENT,
-      multipart: {
-        file: {
-          name: 'mains.geojson',
-          mimeType: 'application/geo+json',
-          buffer: Buffer.from(text),
-        },
-      },
-    }),
-  )
-  const waitFor = async (done: string) => {
-    for (let i = 0; i < 300; i++) {
-      const j = await json<{ status: string }>(await page.request.get(`${api}/${job.id}`))
-      if (j.status === done) return
-      if (j.status !== 'validating' && j.status !== 'committing' && j.status !== 'uploaded')
-        throw new Error(`import ${job.id}: ${JSON.stringify(j)}`)
-      await page.waitForTimeout(100)
-    }
-    throw new Error(`import ${job.id} never reached ${done}`)
-  }
-  await json(await page.request.post(`${api}/${job.id}/validate`, { headers: CLIENT, data: {} }))
-  await waitFor('validated')
-  await json(
-    await page.request.post(`${api}/${job.id}/commit`, {
-      headers: CLIENT,
-      data: { skipInvalid: false },
-    }),
-  )
-  await waitFor('committed')
-}
 
 describe('owner review and permit in a real browser', () => {
   it('engineer accepts with a library condition, officer grants, anyone verifies the PDF', async () => {

@@ -6,18 +6,17 @@ import { combinedActivityId } from '../../shared/screening/combined-screening.ts
 import { toGridActivities, toPieceActivities } from '../../shared/screening/engine-activities.ts'
 import { assessPipe } from '../../shared/statics/index.ts'
 import type { Verdict } from '../../shared/statics/types.ts'
-import type { StoredCombinedScreening } from '../../shared/types/coordination.ts'
 import type { PipeSegmentData } from '../../shared/types/network.ts'
-import { Assessment, OutboxMail } from '../../server/models/index.ts'
+import { OutboxMail } from '../../server/models/index.ts'
 import { pipeEngineInput } from '../../server/services/pipe-engine-input.ts'
 import { pe100Properties } from '../helpers/network-fixtures.ts'
 import {
-  at,
-  buildTwoOwnerNetwork,
-  day,
-  permitDirs,
-  reviewIdFor,
-} from '../helpers/review-fixtures.ts'
+  LEG_LOAD_KN,
+  craneOver,
+  submitWorks,
+  waterAssessment,
+} from '../helpers/coordination-fixtures.ts'
+import { buildTwoOwnerNetwork, day, permitDirs, reviewIdFor } from '../helpers/review-fixtures.ts'
 import { signedInAgent, startTestApp } from '../helpers/test-app.ts'
 import type { TestApp } from '../helpers/test-app.ts'
 
@@ -32,25 +31,6 @@ afterAll(async () => {
 })
 
 const t = crsTransform(25832)
-type Agent = ReturnType<TestApp['agent']>
-
-/** A crane on one 1.5 m mat centred `dx_m` along the water main, right above it. */
-const craneOver = (origin: [number, number], dx_m: number, load_kN: number) => ({
-  kind: 'crane',
-  label: 'Mobile crane',
-  setup: 'single-pad',
-  geometry: { type: 'Point', coordinates: at(origin, dx_m, 0) },
-  legLoad_kN: load_kN,
-  matLength_m: 1.5,
-  matWidth_m: 1.5,
-  matRotation_deg: 0,
-})
-
-/**
- * Chosen with the engine (see the preconditions in the test): one such crane keeps the water
- * main clear (buckling about 0.9 of capacity), two mats side by side make it critical.
- */
-const LEG_LOAD_KN = 1300
 
 /** The engine's verdict for the water main (PE100 fixture, along y = 0, 60 m) with these sets. */
 function engineVerdict(origin: [number, number], sets: unknown[][]): Verdict {
@@ -76,44 +56,6 @@ function engineVerdict(origin: [number, number], sets: unknown[][]): Verdict {
     ).map((a) => (k === 0 ? a : { ...a, id: combinedActivityId(k, a.id) })),
   )
   return assessPipe({ pipe, activities }).verdict
-}
-
-async function submitWorks(
-  agent: Agent,
-  activities: unknown[],
-  startsOn: string,
-  endsOn: string,
-  title: string,
-): Promise<{ id: number; reference: string }> {
-  const draft = await agent.post('/api/applications').send({
-    title,
-    siteAddress: '3 Mill Row, Testbury',
-    contactName: 'Sam Site',
-    contactPhone: '+49 170 1234567',
-    startsOn,
-    endsOn,
-    description: 'Works for the coordination tests.',
-    activities,
-  })
-  expect(draft.status).toBe(201)
-  const res = await agent.post(`/api/applications/${draft.body.id}/submit`).send({ version: 0 })
-  expect(res.status).toBe(200)
-  return { id: draft.body.id as number, reference: res.body.reference as string }
-}
-
-async function waterAssessment(applicationId: number, waterOwnerId: number) {
-  const row = await Assessment.findOne({
-    where: { applicationId, ownerOrganisationId: waterOwnerId },
-  })
-  expect(row).not.toBeNull()
-  const combined = row!.combined
-  return {
-    verdict: row!.verdict,
-    combinedVerdict: row!.combinedVerdict,
-    combined: (typeof combined === 'string'
-      ? JSON.parse(combined)
-      : combined) as StoredCombinedScreening | null,
-  }
 }
 
 describe('combined screening of concurrent works', () => {
@@ -219,6 +161,8 @@ describe('combined screening of concurrent works', () => {
       (c: { kind: string; applications: { applicationId: number }[] }) =>
         c.kind === 'combined-load' && c.applications.some((x) => x.applicationId === a.id),
     )
+    // The segment's line comes along for the works map: the 60 m main, in lon/lat.
+    expect(mine[0].segment.geometry.coordinates).toHaveLength(2)
     expect(mine).toEqual([
       {
         kind: 'combined-load',
@@ -246,6 +190,7 @@ describe('combined screening of concurrent works', () => {
           id: expect.any(Number),
           owner: { id: net.water.id, name: net.water.name },
           medium: 'water',
+          geometry: { type: 'LineString', coordinates: expect.any(Array) },
         },
         verdictAlone: 'clear',
         verdictCombined: 'critical',

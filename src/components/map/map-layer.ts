@@ -5,14 +5,16 @@ import type { PipeMedium } from '../../utils/pipe-media.ts'
  * What a page hands to TownMap to draw above the streets. Plain data (GeoJSON in WGS84), so
  * pages and stores never import the map library.
  */
-export type MapLayerKind = 'pipes' | 'works' | 'outline'
+export type MapLayerKind = 'pipes' | 'works' | 'works-selected' | 'outline'
 
 export interface MapLayerSpec {
   /** Unique per map; also reported back in feature clicks. */
   id: string
   /**
    * 'pipes': lines coloured by each feature's `medium` property (or `medium` below);
-   * 'works': planned works in the works colour; 'outline': a neutral boundary.
+   * 'works': planned works in the works colour; 'works-selected': works picked out by the
+   * user, drawn bolder and labelled with each feature's `reference`; 'outline': a neutral
+   * boundary.
    */
   kind: MapLayerKind
   /** Shown in the legend. */
@@ -36,5 +38,5 @@ export interface LegendEntry {
   key: string
   label: string
   colour: string
-  shape: 'line' | 'dashed-line' | 'area'
+  shape: 'line' | 'dashed-line' | 'area' | 'solid-area'
 }
