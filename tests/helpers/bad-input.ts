@@ -231,7 +231,10 @@ function pathsOf(v: unknown, prefix: Path = []): Path[] {
 function setAt(v: unknown, path: Path, value: unknown): unknown {
   if (path.length === 0) return value
   const [head, ...rest] = path
-  const copy: Record<string | number, unknown> = Array.isArray(v) ? [...v] : { ...(v as object) }
+  const copy = (Array.isArray(v) ? [...v] : { ...(v as object) }) as Record<
+    string | number,
+    unknown
+  >
   copy[head!] = setAt(copy[head!], rest, value)
   return copy
 }

@@ -36,6 +36,37 @@ export const ACTOR_ROLE = {
 
 type Agent = ReturnType<TestApp['agent']>
 
+/** A signed-in caller of the fixtures. */
+export interface FixtureUser {
+  agent: Agent
+  email: string
+  password: string
+  organisationId: number
+}
+
+export interface SecurityFixtures {
+  net: { w: FixtureUser; g: FixtureUser; wRef: string; gRef: string }
+  agents: Record<Actor, Agent>
+  users: Record<'applicant' | 'otherApplicant' | 'officer' | 'otherOfficer' | 'admin', FixtureUser>
+  fullDraft(title: string): Record<string, unknown>
+  submittedId: number
+  attachmentId: number
+  reviewId: number
+  assessmentId: number
+  draftId: number
+  draftAttachmentId: number
+  spareDraftId: number
+  grantedId: number
+  permitId: number
+  verificationCode: string
+  templateId: number
+  templateCode: string
+  importId: number
+  segmentId: number
+  segmentVersion: number
+  targetUserId: number
+}
+
 /**
  * Real rows for the access and bad-input tests. The water owner (engineer) has a main; the
  * applicant's works lie beside it only, so the gas owner (otherEngineer) is not a party.
@@ -46,7 +77,7 @@ type Agent = ReturnType<TestApp['agent']>
  * - `templateId`: a condition in the water owner's library; `importId`, `segmentId` of water.
  * - `assessmentId`: the water main's assessment in the review; `targetUserId` for admin edits.
  */
-export async function buildSecurityFixtures(app: TestApp) {
+export async function buildSecurityFixtures(app: TestApp): Promise<SecurityFixtures> {
   const net = await buildTwoOwnerNetwork(app)
   const applicant = await signedInAgent(app, 'applicant')
   const otherApplicant = await signedInAgent(app, 'applicant')
@@ -152,10 +183,27 @@ export async function buildSecurityFixtures(app: TestApp) {
   expect(segment).toBeDefined()
   const target = await createTestUser('applicant')
 
+  const slim = (u: {
+    agent: Agent
+    email: string
+    password: string
+    organisation: { id: number }
+  }) => ({
+    agent: u.agent,
+    email: u.email,
+    password: u.password,
+    organisationId: u.organisation.id,
+  })
   return {
-    net,
+    net: { w: slim(net.w), g: slim(net.g), wRef: net.wRef, gRef: net.gRef },
     agents,
-    users: { applicant, otherApplicant, officer, otherOfficer, admin },
+    users: {
+      applicant: slim(applicant),
+      otherApplicant: slim(otherApplicant),
+      officer: slim(officer),
+      otherOfficer: slim(otherOfficer),
+      admin: slim(admin),
+    },
     fullDraft,
     submittedId,
     attachmentId,
@@ -175,7 +223,6 @@ export async function buildSecurityFixtures(app: TestApp) {
     targetUserId: target.user.id,
   }
 }
-export type SecurityFixtures = Awaited<ReturnType<typeof buildSecurityFixtures>>
 
 /** The first assessment id anywhere in a review detail (the water main's). */
 function findAssessmentId(detail: unknown): number {

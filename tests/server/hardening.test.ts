@@ -7,6 +7,7 @@ import { createApp } from '../../server/app.ts'
 import { apiRoutes, fillPath } from '../helpers/api-routes.ts'
 import type { ApiRoute } from '../helpers/api-routes.ts'
 import { TINY_PDF } from '../helpers/security-fixtures.ts'
+import { tableChecksums } from '../helpers/table-checksums.ts'
 import { signedInAgent, startTestApp, unique } from '../helpers/test-app.ts'
 import type { TestApp } from '../helpers/test-app.ts'
 
@@ -38,22 +39,28 @@ let address = 0
 /** A client address of its own (the app trusts one proxy hop in this file). */
 const freshAddress = () => `10.9.${(++address >> 8) & 255}.${address & 255}`
 
-async function draftOf(agent: ReturnType<TestApp['agent']>) {
+type Agent = ReturnType<TestApp['agent']>
+
+/** Upload one document to a draft, from an address of its own. */
+function upload(
+  agent: Agent,
+  id: number,
+  kind: string,
+  content: Buffer,
+  filename: string,
+  contentType = 'application/pdf',
+) {
+  return agent
+    .post(`/api/applications/${id}/attachments`)
+    .set('X-Forwarded-For', freshAddress())
+    .field('kind', kind)
+    .attach('file', content, { filename, contentType })
+}
+
+async function draftOf(agent: Agent) {
   const res = await agent.post('/api/applications').send({ title: 'Hardening test' })
   expect(res.status).toBe(201)
   return res.body.id as number
-}
-
-async function tableChecksums(): Promise<string> {
-  const rows = await app.sequelize.query<{ t: string }>(
-    "SELECT TABLE_NAME AS t FROM information_schema.TABLES WHERE TABLE_SCHEMA = DATABASE() AND TABLE_TYPE = 'BASE TABLE' AND TABLE_NAME <> 'sessions'",
-    { type: QueryTypes.SELECT },
-  )
-  const sums = await app.sequelize.query(
-    `CHECKSUM TABLE ${rows.map((r) => `\`${r.t}\``).join(', ')}`,
-    { type: QueryTypes.SELECT },
-  )
-  return JSON.stringify(sums)
 }
 
 /** A raw GET whose path is sent exactly as written (fetch and supertest normalise `..`). */
@@ -79,7 +86,7 @@ describe('CSRF guard on cookie-authenticated writes', () => {
     const { agent } = await signedInAgent(app, 'admin')
     const writes = routes.filter((r) => r.method !== 'GET')
     expect(writes.length).toBeGreaterThan(20)
-    const before = await tableChecksums()
+    const before = await tableChecksums(app.sequelize)
     for (const route of writes) {
       const path = fillPath(
         route.path,
@@ -100,7 +107,7 @@ describe('CSRF guard on cookie-authenticated writes', () => {
         })
       }
     }
-    expect(await tableChecksums()).toBe(before)
+    expect(await tableChecksums(app.sequelize)).toEqual(before)
     // Sign-out was refused as well: the session still works.
     expect((await agent.get('/api/auth/me')).status).toBe(200)
   })
@@ -113,11 +120,7 @@ describe('upload limits', () => {
     const dir = join(app.config.uploadDir, 'attachments')
     const filesBefore = await readdir(dir).catch(() => [])
     const big = Buffer.concat([TINY_PDF, Buffer.alloc(1.5 * 1024 * 1024, 0x20)])
-    const res = await agent
-      .post(`/api/applications/${id}/attachments`)
-      .set('X-Forwarded-For', freshAddress())
-      .field('kind', 'drawing')
-      .attach('file', big, { filename: 'big.pdf', contentType: 'application/pdf' })
+    const res = await upload(agent, id, 'drawing', big, 'big.pdf', 'application/pdf')
     expect(res.status).toBe(413)
     expect(res.body.error).toMatchObject({
       code: 'PAYLOAD_TOO_LARGE',
@@ -151,6 +154,26 @@ describe('upload limits', () => {
     expect(res.body.error.code).toBe('PAYLOAD_TOO_LARGE')
   })
 
+  it('when a JSON body has a charset or encoding the parser cannot read, then it responds 415 in the envelope', async () => {
+    const { agent } = await signedInAgent(app, 'applicant')
+    const charset = await agent
+      .post('/api/applications')
+      .set('Content-Type', 'application/json; charset=koi8-r')
+      .send('{"title":"Works"}')
+    expect(charset.status).toBe(415)
+    expect(charset.body.error).toMatchObject({
+      code: 'VALIDATION_FAILED',
+      requestId: expect.any(String),
+    })
+    const encoding = await agent
+      .post('/api/applications')
+      .set('Content-Type', 'application/json')
+      .set('Content-Encoding', 'x-unknown')
+      .send('{"title":"Works"}')
+    expect(encoding.status).toBe(415)
+    expect(encoding.body.error.code).toBe('VALIDATION_FAILED')
+  })
+
   it('when the content is HTML or SVG named and declared as an image, then it responds 400 on file', async () => {
     const { agent } = await signedInAgent(app, 'applicant')
     const id = await draftOf(agent)
@@ -159,11 +182,7 @@ describe('upload limits', () => {
       ['plan.svg', '<svg xmlns="http://www.w3.org/2000/svg" onload="alert(1)"/>'],
       ['lift.pdf', ' %PDF-1.4 with a space in front'],
     ] as const) {
-      const res = await agent
-        .post(`/api/applications/${id}/attachments`)
-        .set('X-Forwarded-For', freshAddress())
-        .field('kind', 'photo')
-        .attach('file', Buffer.from(content), { filename: name, contentType: 'image/png' })
+      const res = await upload(agent, id, 'photo', Buffer.from(content), name, 'image/png')
       expect(res.status, name).toBe(400)
       expect(res.body.error.fields).toEqual([
         { field: 'file', message: 'Only PDF, PNG, JPEG or WebP files can be attached' },
@@ -178,11 +197,7 @@ describe('upload limits', () => {
       Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]),
       Buffer.alloc(32),
     ])
-    const up = await agent
-      .post(`/api/applications/${id}/attachments`)
-      .set('X-Forwarded-For', freshAddress())
-      .field('kind', 'photo')
-      .attach('file', png, { filename: 'site.pdf', contentType: 'application/pdf' })
+    const up = await upload(agent, id, 'photo', png, 'site.pdf', 'application/pdf')
     expect(up.status).toBe(201)
     const file = await agent
       .get(`/api/applications/${id}/attachments/${up.body.id}/file`)
@@ -197,14 +212,14 @@ describe('no path traversal into files', () => {
   it('when the uploaded file name climbs out of its folder, then only its last part is kept and the file stays in the upload folder', async () => {
     const { agent } = await signedInAgent(app, 'applicant')
     const id = await draftOf(agent)
-    const up = await agent
-      .post(`/api/applications/${id}/attachments`)
-      .set('X-Forwarded-For', freshAddress())
-      .field('kind', 'drawing')
-      .attach('file', TINY_PDF, {
-        filename: '../../../etc/passwd.pdf',
-        contentType: 'application/pdf',
-      })
+    const up = await upload(
+      agent,
+      id,
+      'drawing',
+      TINY_PDF,
+      '../../../etc/passwd.pdf',
+      'application/pdf',
+    )
     expect(up.status).toBe(201)
     expect(up.body.filename).toBe('passwd.pdf')
     const rows = await app.sequelize.query<{ storageName: string }>(
@@ -221,14 +236,14 @@ describe('no path traversal into files', () => {
   it('when a file name has umlauts, then it is kept as written (UTF-8), not garbled', async () => {
     const { agent } = await signedInAgent(app, 'applicant')
     const id = await draftOf(agent)
-    const up = await agent
-      .post(`/api/applications/${id}/attachments`)
-      .set('X-Forwarded-For', freshAddress())
-      .field('kind', 'drawing')
-      .attach('file', TINY_PDF, {
-        filename: 'Lagepläne Straße.pdf',
-        contentType: 'application/pdf',
-      })
+    const up = await upload(
+      agent,
+      id,
+      'drawing',
+      TINY_PDF,
+      'Lagepläne Straße.pdf',
+      'application/pdf',
+    )
     expect(up.status).toBe(201)
     expect(up.body.filename).toBe('Lagepläne Straße.pdf')
   })
