@@ -36,7 +36,8 @@ function isDatabaseDown(err: unknown): boolean {
 /**
  * The one place errors become HTTP responses. AppError: its status and code. zod: 400 with the
  * fields. Body-parser failures: 400 / 413. Database unreachable: 503. Anything else: logged with
- * the request id, 500 with a generic message (stack only in development).
+ * the request id, 500 with a generic message (stack only in development). A malformed %-escape in
+ * a path and the body parser's other client errors: 400 (415 / 4xx as the parser says).
  */
 export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
   const requestId = req.id === undefined ? undefined : String(req.id)
@@ -74,6 +75,36 @@ export const errorHandler: ErrorRequestHandler = (err, req, res, _next) => {
       error: {
         code: ErrorCode.PAYLOAD_TOO_LARGE,
         message: 'The request body is too large',
+        requestId,
+      },
+    })
+    return
+  }
+  if (err instanceof URIError && (err as { status?: number }).status === 400) {
+    // The router could not decode a %-escape in a path parameter (`/api/x/%zz`).
+    send(res, 400, {
+      error: {
+        code: ErrorCode.VALIDATION_FAILED,
+        message: 'The address contains a malformed %-escape',
+        fields: [{ field: 'path', message: 'Malformed %-escape' }],
+        requestId,
+      },
+    })
+    return
+  }
+  const status = (err as { status?: unknown; expose?: unknown })?.status
+  if (
+    typeof status === 'number' &&
+    status >= 400 &&
+    status < 500 &&
+    (err as { expose?: unknown }).expose === true
+  ) {
+    // Other client errors of the body parser (unsupported charset or encoding, aborted body).
+    send(res, status, {
+      error: {
+        code: ErrorCode.VALIDATION_FAILED,
+        message: 'The request body cannot be read',
+        fields: [{ field: 'body', message: (err as Error).message }],
         requestId,
       },
     })

@@ -27,9 +27,10 @@ attachmentsRouter.post('/', allow(['applicant']), uploadLimiter, async (req, res
 attachmentsRouter.get('/:attachmentId/file', readers, async (req, res) => {
   const p = fileParams.parse(req.params)
   const f = await attachmentFile(req.user!, p.id, p.attachmentId)
+  // attachment() would set the type from the name the uploader chose; the sniffed type wins.
+  res.attachment(f.filename)
   res.setHeader('Content-Type', f.contentType)
   res.setHeader('X-Content-Type-Options', 'nosniff')
-  res.attachment(f.filename)
   res.sendFile(f.path, { dotfiles: 'allow' })
 })
 

@@ -47,6 +47,8 @@ export async function receiveFile(
     bb = busboy({
       headers: req.headers,
       limits: { files: 1, fields: maxFields, fileSize: maxBytes, fieldSize: 1024 },
+      // Browsers send file names as UTF-8; busboy's default (latin1) garbles "Lagepläne.pdf".
+      defParamCharset: 'utf8',
     })
   } catch {
     throw validationFailed([{ field: 'file', message: 'The multipart body is malformed' }])
