@@ -56,7 +56,12 @@ describe('when the database server dies and comes back', () => {
           .post('/api/admin/organisations')
           .send({ name, kind: 'contractor' })
           .timeout(30_000)
-        attempts.push({ name, status: res.status, code: res.body?.error?.code, ms: Date.now() - t0 })
+        attempts.push({
+          name,
+          status: res.status,
+          code: res.body?.error?.code,
+          ms: Date.now() - t0,
+        })
         await sleep(50)
       }
     })()
