@@ -133,7 +133,7 @@ describe('scripts/backup and scripts/restore', () => {
       `SELECT details FROM audit_events WHERE action = 'backup-test'`,
       { type: QueryTypes.SELECT },
     )
-    expect(String(audit!.details)).toContain('Grüße, ø 200 mm')
+    expect(JSON.stringify(audit!.details)).toContain('Grüße, ø 200 mm')
     const [street] = await sequelize.query<{ wkt: string; srid: number }>(
       `SELECT ST_AsText(geom) AS wkt, ST_SRID(geom) AS srid FROM streets WHERE name = 'Backup Lane'`,
       { type: QueryTypes.SELECT },
