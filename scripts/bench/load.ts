@@ -12,8 +12,8 @@ import { createSequelize } from '../../server/db/sequelize.ts'
 import { initModels } from '../../server/models/index.ts'
 import { ensureDatabase, testEnv } from '../../tests/helpers/local-env.ts'
 import { freePort } from '../../tests/helpers/throwaway-mariadb.ts'
-import { startAppProcess } from './app-process.ts'
-import { buildScenario, runLoad } from './load-scenario.ts'
+import { startAppProcess } from '../../tests/helpers/app-process.ts'
+import { buildScenario, runLoad } from '../../tests/helpers/load-scenario.ts'
 
 const arg = (name: string, fallback: number) => {
   const i = process.argv.indexOf(`--${name}`)

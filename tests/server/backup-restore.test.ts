@@ -17,7 +17,7 @@ const files = {
   PERMIT_DIR: join(dir, 'permits'),
   KEY_DIR: join(dir, 'keys'),
 }
-const env = { ...inject('testEnv'), DB_NAME: DB }
+const env: Record<string, string> = { ...inject('testEnv'), DB_NAME: DB }
 let sequelize: ReturnType<typeof createSequelize>
 
 const scriptEnv = () => ({

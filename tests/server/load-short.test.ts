@@ -2,9 +2,9 @@ import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest'
 import { parseConfig, setConfig } from '../../server/config.ts'
 import { createSequelize } from '../../server/db/sequelize.ts'
 import { initModels } from '../../server/models/index.ts'
-import { startAppProcess } from '../../scripts/bench/app-process.ts'
-import type { AppProcess } from '../../scripts/bench/app-process.ts'
-import { buildScenario, runLoad } from '../../scripts/bench/load-scenario.ts'
+import { startAppProcess } from '../helpers/app-process.ts'
+import type { AppProcess } from '../helpers/app-process.ts'
+import { buildScenario, runLoad } from '../helpers/load-scenario.ts'
 import { freePort } from '../helpers/throwaway-mariadb.ts'
 
 // The short form of scripts/bench/load.ts: it asserts correctness only (no timing).

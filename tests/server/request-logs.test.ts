@@ -5,8 +5,8 @@ import { parseConfig, setConfig } from '../../server/config.ts'
 import { createSequelize } from '../../server/db/sequelize.ts'
 import { loggableUrl } from '../../server/logger.ts'
 import { Organisation, User, initModels } from '../../server/models/index.ts'
-import { startAppProcess } from '../../scripts/bench/app-process.ts'
-import type { AppProcess } from '../../scripts/bench/app-process.ts'
+import { startAppProcess } from '../helpers/app-process.ts'
+import type { AppProcess } from '../helpers/app-process.ts'
 import { freePort } from '../helpers/throwaway-mariadb.ts'
 
 const env = inject('testEnv')

@@ -1,7 +1,7 @@
 import { spawn } from 'node:child_process'
 import type { ChildProcess } from 'node:child_process'
 import { join } from 'node:path'
-import { ROOT } from '../../tests/helpers/local-env.ts'
+import { ROOT } from './local-env.ts'
 
 export interface AppProcess {
   baseUrl: string
