@@ -1,7 +1,11 @@
 import { spawn } from 'node:child_process'
 import type { ChildProcess } from 'node:child_process'
 import { join } from 'node:path'
+import { parseConfig, setConfig } from '../../server/config.ts'
+import { createSequelize } from '../../server/db/sequelize.ts'
+import { initModels } from '../../server/models/index.ts'
 import { ROOT } from './local-env.ts'
+import { freePort } from './throwaway-mariadb.ts'
 
 export interface AppProcess {
   baseUrl: string
@@ -47,4 +51,33 @@ export async function startAppProcess(env: Record<string, string>): Promise<AppP
   }
   child.kill('SIGTERM')
   throw new Error(`the app process did not become ready: ${err}`)
+}
+
+/**
+ * For server tests: the real server process on the test database (free ports for the app and
+ * for an SMTP server nobody runs), plus a Sequelize of the test's own on the same database
+ * with the models registered, for setting up rows and counting them.
+ */
+export async function startAppProcessOnTestDb(
+  env: Record<string, string>,
+  extra: Record<string, string> = {},
+) {
+  const cfg = parseConfig(env)
+  setConfig(cfg)
+  const sequelize = createSequelize(cfg)
+  initModels(sequelize)
+  const app = await startAppProcess({
+    ...env,
+    ...extra,
+    PORT: String(await freePort()),
+    SMTP_PORT: String(await freePort()),
+  })
+  return {
+    app,
+    sequelize,
+    async stop() {
+      await app.stop()
+      await sequelize.close()
+    },
+  }
 }

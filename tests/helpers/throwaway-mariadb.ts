@@ -87,21 +87,20 @@ export class ThrowawayMariaDb {
   }
 
   /** Kill the server hard (SIGKILL: no clean shutdown, as a crash or a pulled plug). */
-  async kill(): Promise<void> {
-    const p = this.proc
-    if (!p || p.exitCode !== null) return
-    const exited = new Promise((r) => p.once('exit', r))
-    p.kill('SIGKILL')
-    await exited
-    this.proc = undefined
+  kill(): Promise<void> {
+    return this.end('SIGKILL')
   }
 
   /** Clean shutdown (SIGTERM), waiting for the process to exit. */
-  async stop(): Promise<void> {
+  stop(): Promise<void> {
+    return this.end('SIGTERM')
+  }
+
+  private async end(signal: NodeJS.Signals): Promise<void> {
     const p = this.proc
     if (!p || p.exitCode !== null) return
     const exited = new Promise((r) => p.once('exit', r))
-    p.kill('SIGTERM')
+    p.kill(signal)
     await exited
     this.proc = undefined
   }

@@ -1,37 +1,22 @@
 import { QueryTypes } from 'sequelize'
 import { afterAll, beforeAll, describe, expect, it, inject } from 'vitest'
 import bcrypt from 'bcrypt'
-import { parseConfig, setConfig } from '../../server/config.ts'
-import { createSequelize } from '../../server/db/sequelize.ts'
 import { loggableUrl } from '../../server/logger.ts'
-import { Organisation, User, initModels } from '../../server/models/index.ts'
-import { startAppProcess } from '../helpers/app-process.ts'
-import type { AppProcess } from '../helpers/app-process.ts'
-import { freePort } from '../helpers/throwaway-mariadb.ts'
+import { Organisation, User } from '../../server/models/index.ts'
+import { startAppProcessOnTestDb } from '../helpers/app-process.ts'
 
-const env = inject('testEnv')
-const sequelize = createSequelize(parseConfig(env))
-let app: AppProcess
-
+// The real server process at the most talkative level, its stdout captured.
+let run: Awaited<ReturnType<typeof startAppProcessOnTestDb>>
 beforeAll(async () => {
-  setConfig(parseConfig(env))
-  initModels(sequelize)
-  // The real server process at the most talkative level, its stdout captured.
-  app = await startAppProcess({
-    ...env,
-    LOG_LEVEL: 'trace',
-    PORT: String(await freePort()),
-    SMTP_PORT: String(await freePort()),
-  })
+  run = await startAppProcessOnTestDb(inject('testEnv'), { LOG_LEVEL: 'trace' })
 }, 120_000)
 afterAll(async () => {
-  await app?.stop()
-  await sequelize.close()
+  await run?.stop()
 })
 
 const HEADERS = { 'X-Trenchward-Client': '1', 'Content-Type': 'application/json' }
 const post = (path: string, body: unknown, cookie = '') =>
-  fetch(`${app.baseUrl}${path}`, {
+  fetch(`${run.app.baseUrl}${path}`, {
     method: 'POST',
     headers: { ...HEADERS, cookie },
     body: JSON.stringify(body),
@@ -65,26 +50,26 @@ describe('request logs', () => {
     const cookie = /tw\.sid=[^;]+/.exec(signIn.headers.get('set-cookie') ?? '')![0]
     const cookieValue = cookie.slice('tw.sid='.length)
     const sid = /^s:([^.]+)\./.exec(decodeURIComponent(cookieValue))![1]!
-    const me = await fetch(`${app.baseUrl}/api/auth/me`, { headers: { cookie } })
+    const me = await fetch(`${run.app.baseUrl}/api/auth/me`, { headers: { cookie } })
     expect(me.status).toBe(200)
     const requestId = me.headers.get('x-request-id')
     expect(requestId).toMatch(/^[0-9a-f-]{36}$/)
 
     expect((await post('/api/auth/password-reset/request', { email })).status).toBe(202)
-    const [mail] = await sequelize.query<{ text_body: string }>(
+    const [mail] = await run.sequelize.query<{ text_body: string }>(
       'SELECT text_body FROM outbox_mails WHERE to_address = ? ORDER BY id DESC LIMIT 1',
       { replacements: [email], type: QueryTypes.SELECT },
     )
     const token = /#token=([A-Za-z0-9_-]{43})/.exec(mail!.text_body)![1]!
     // A token in a query string (a mistyped link) must not reach the log either.
-    await fetch(`${app.baseUrl}/api/auth/me?token=${token}`, { headers: { cookie } })
+    await fetch(`${run.app.baseUrl}/api/auth/me?token=${token}`, { headers: { cookie } })
     expect(
       (await post('/api/auth/password-reset/complete', { token, password: newPassword })).status,
     ).toBe(204)
     expect((await post('/api/auth/sign-out', {}, cookie)).status).toBe(204)
     await new Promise((r) => setTimeout(r, 300))
 
-    const out = app.output()
+    const out = run.app.output()
     const lines = out
       .split('\n')
       .filter(Boolean)
