@@ -9,7 +9,7 @@ import type { Sequelize } from 'sequelize'
 import { configurePassport } from './auth/passport.ts'
 import { createSessionMiddleware } from './auth/session.ts'
 import type { AppConfig } from './config.ts'
-import { logger, setLogLevel } from './logger.ts'
+import { loggableUrl, logger, setLogLevel } from './logger.ts'
 import { allow } from './middleware/access.ts'
 import { requireClientHeader } from './middleware/csrf.ts'
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts'
@@ -59,7 +59,7 @@ export function createApp(cfg: AppConfig, sequelize: Sequelize): CreatedApp {
         req: (req: { id: string; method: string; url: string }) => ({
           id: req.id,
           method: req.method,
-          url: req.url,
+          url: loggableUrl(req.url),
         }),
       },
     }),

@@ -105,6 +105,8 @@ const envSchema = z.object({
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   BCRYPT_COST: z.coerce.number().int().min(12).max(15).default(12),
   SIGN_IN_MAX_FAILURES: z.coerce.number().int().min(1).max(100).default(5),
+  /** How long an e-mailed password-reset link stays good, in minutes. */
+  PASSWORD_RESET_TTL_MIN: z.coerce.number().int().min(5).max(24 * 60).default(60),
   SIGN_IN_LOCK_MIN: z.coerce
     .number()
     .positive()

@@ -1,5 +1,6 @@
 import session from 'express-session'
 import connectSessionSequelize from 'connect-session-sequelize'
+import { QueryTypes } from 'sequelize'
 import type { Sequelize } from 'sequelize'
 import type { AppConfig } from '../config.ts'
 
@@ -19,6 +20,23 @@ export function createSessionMiddleware(cfg: AppConfig, sequelize: Sequelize) {
     checkExpirationInterval: 15 * 60_000,
     expiration: maxAge_ms,
   })
+  // The store's own get() returns a row whatever its `expires`; the periodic clean-up runs only
+  // every 15 minutes. A session past its expiry is refused (and removed) here, so the idle
+  // lifetime holds to the second even for a client that keeps an old cookie.
+  const storedGet = store.get.bind(store)
+  store.get = (sid, callback) => {
+    sequelize
+      .query<{ expires: Date | null }>('SELECT expires FROM sessions WHERE sid = ?', {
+        replacements: [sid],
+        type: QueryTypes.SELECT,
+      })
+      .then(([row]) => {
+        if (!row) return callback(null, null)
+        if (row.expires && new Date(row.expires).getTime() <= Date.now())
+          return store.destroy(sid, () => callback(null, null))
+        storedGet(sid, callback)
+      }, callback)
+  }
   const middleware = session({
     name: SESSION_COOKIE,
     secret: cfg.SESSION_SECRET,

@@ -22,15 +22,46 @@ export const apiNotFound: RequestHandler = (req, res) => {
   })
 }
 
-function isDatabaseDown(err: unknown): boolean {
-  const name = (err as { name?: string })?.name ?? ''
-  return (
-    name === 'SequelizeConnectionError' ||
-    name === 'SequelizeConnectionRefusedError' ||
-    name === 'SequelizeConnectionAcquireTimeoutError' ||
-    name === 'SequelizeHostNotReachableError' ||
-    name === 'SequelizeConnectionTimedOutError'
-  )
+const CONNECTION_ERRORS = new Set([
+  'SequelizeConnectionError',
+  'SequelizeConnectionRefusedError',
+  'SequelizeConnectionAcquireTimeoutError',
+  'SequelizeHostNotReachableError',
+  'SequelizeConnectionTimedOutError',
+])
+
+// Driver codes of a connection that broke under a running query (server killed, restarted,
+// network cut); Sequelize reports these as a SequelizeDatabaseError.
+const BROKEN_CONNECTION_CODES = new Set([
+  'ECONNRESET',
+  'ECONNREFUSED',
+  'EPIPE',
+  'ETIMEDOUT',
+  'ER_SOCKET_UNEXPECTED_CLOSE',
+  'ER_CONNECTION_ALREADY_CLOSED',
+  'ER_CMD_CONNECTION_CLOSED',
+  'ER_GET_CONNECTION_TIMEOUT',
+  'ER_CONNECTION_TIMEOUT',
+  'ER_SERVER_SHUTDOWN',
+  'ER_CONNECTION_KILLED',
+  'ER_CLIENT_INTERACTION_TIMEOUT',
+])
+
+/** True for every way "the database is not reachable" reaches us, directly or wrapped. */
+export function isDatabaseDown(err: unknown, depth = 0): boolean {
+  if (!err || typeof err !== 'object' || depth > 3) return false
+  const e = err as {
+    name?: string
+    code?: string
+    original?: unknown
+    parent?: unknown
+    cause?: unknown
+  }
+  if (CONNECTION_ERRORS.has(e.name ?? '')) return true
+  if (e.name === 'SequelizeDatabaseError' || e.name === 'SqlError' || depth > 0) {
+    if (BROKEN_CONNECTION_CODES.has(e.code ?? '')) return true
+  }
+  return [e.original, e.parent, e.cause].some((inner) => isDatabaseDown(inner, depth + 1))
 }
 
 /**

@@ -57,3 +57,28 @@ export const uploadLimiter = limiter({
   limit: 60,
   message: 'Too many uploads in a short time. Wait a few minutes and try again.',
 })
+
+/**
+ * "Forgot password" requests: 5 per client address and e-mail in 15 minutes, 20 per address
+ * (every request counts). The service also sends at most a few links per account and hour.
+ */
+export const passwordResetRequestLimiter = limiter({
+  window_ms: 15 * 60_000,
+  limit: 5,
+  message: 'Too many requests for a new password. Wait a few minutes and try again.',
+  key: (req) =>
+    `${byAddress(req)}|${String((req.body as { email?: unknown })?.email ?? '').toLowerCase()}`,
+})
+
+export const passwordResetAddressLimiter = limiter({
+  window_ms: 15 * 60_000,
+  limit: 20,
+  message: 'Too many requests for a new password. Wait a few minutes and try again.',
+})
+
+/** Attempts to use a reset link: 20 per client address in 15 minutes (tokens cannot be walked). */
+export const passwordResetCompleteLimiter = limiter({
+  window_ms: 15 * 60_000,
+  limit: 20,
+  message: 'Too many attempts. Wait a few minutes and ask for a new link.',
+})

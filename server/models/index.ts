@@ -8,6 +8,7 @@ import { ImportMapping } from './import-mapping.ts'
 import { NetworkImport } from './network-import.ts'
 import { Organisation } from './organisation.ts'
 import { OutboxMail } from './outbox-mail.ts'
+import { PasswordReset } from './password-reset.ts'
 import { PipeSegment } from './pipe-segment.ts'
 import { User } from './user.ts'
 import { ConditionTemplate } from './condition-template.ts'
@@ -28,6 +29,7 @@ export {
   NetworkImport,
   Organisation,
   OutboxMail,
+  PasswordReset,
   PipeSegment,
   User,
 }
@@ -58,6 +60,7 @@ export function initModels(sequelize: Sequelize): void {
   ApplicationAttachment.initModel(sequelize)
   Assessment.initModel(sequelize)
   OutboxMail.initModel(sequelize)
+  PasswordReset.initModel(sequelize)
   Organisation.hasMany(User, { foreignKey: 'organisationId', as: 'users' })
   User.belongsTo(Organisation, { foreignKey: 'organisationId', as: 'organisation' })
   AuditEvent.belongsTo(User, { foreignKey: 'actorUserId', as: 'actor' })

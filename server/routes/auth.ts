@@ -1,9 +1,23 @@
 import { Router } from 'express'
 import type { NextFunction, Request, Response } from 'express'
 import passport from 'passport'
-import { signInSchema } from '../../shared/schemas/auth.ts'
+import {
+  passwordResetRequestSchema,
+  passwordResetSchema,
+  signInSchema,
+} from '../../shared/schemas/auth.ts'
 import { allow } from '../middleware/access.ts'
-import { signInLimiter } from '../middleware/rate-limits.ts'
+import {
+  passwordResetAddressLimiter,
+  passwordResetCompleteLimiter,
+  passwordResetRequestLimiter,
+  signInLimiter,
+} from '../middleware/rate-limits.ts'
+import {
+  RESET_REQUEST_ANSWER,
+  completePasswordReset,
+  requestPasswordReset,
+} from '../services/password-reset.ts'
 import { recordAudit } from '../services/audit.ts'
 import { toUserDto } from '../services/users.ts'
 import type { User } from '../models/user.ts'
@@ -51,3 +65,28 @@ authRouter.post('/sign-out', allow('public'), (req, res, next) => {
 authRouter.get('/me', allow('signed-in'), (req, res) => {
   res.json({ user: toUserDto(req.user as User) })
 })
+
+/** "Forgot password": always 202 with the same words, whether or not the address is known. */
+authRouter.post(
+  '/password-reset/request',
+  allow('public'),
+  passwordResetAddressLimiter,
+  passwordResetRequestLimiter,
+  async (req, res) => {
+    const { email } = passwordResetRequestSchema.parse(req.body)
+    await requestPasswordReset(email, req.ip ?? null)
+    res.status(202).json({ message: RESET_REQUEST_ANSWER })
+  },
+)
+
+/** "Choose a new password" with the token from the mailed link; ends the account's sessions. */
+authRouter.post(
+  '/password-reset/complete',
+  allow('public'),
+  passwordResetCompleteLimiter,
+  async (req, res) => {
+    const input = passwordResetSchema.parse(req.body)
+    await completePasswordReset(input, req.ip ?? null)
+    res.status(204).end()
+  },
+)

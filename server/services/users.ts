@@ -6,6 +6,8 @@ import type {
   UpdateUserInput,
 } from '../../shared/schemas/auth.ts'
 import type { OrganisationDto, UserDto } from '../../shared/types/user.ts'
+import { passwordProblem } from '../../shared/schemas/password-rules.ts'
+import { endSessionsOfUser } from '../auth/user-sessions.ts'
 import { config } from '../config.ts'
 import { conflict, notFound, validationFailed } from '../errors.ts'
 import { Organisation, User } from '../models/index.ts'
@@ -130,11 +132,16 @@ export async function updateUser(
   if (input.role !== undefined) user.role = input.role
   if (input.active !== undefined) user.active = input.active
   if (input.password !== undefined) {
+    const problem = passwordProblem(input.password, user.email)
+    if (problem) throw validationFailed([{ field: 'password', message: problem }])
     user.passwordHash = await hashPassword(input.password)
     user.failedSignIns = 0
     user.lockedUntil = null
   }
   await user.save()
+  // A password set by an administrator signs the account out everywhere (not the admin's own).
+  if (input.password !== undefined && user.id !== actorUserId)
+    await endSessionsOfUser(User.sequelize!, user.id)
   const changed = Object.keys(input).filter((k) => k !== 'password')
   await recordAudit({
     actorUserId,

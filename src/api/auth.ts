@@ -23,3 +23,16 @@ export async function fetchMe(): Promise<UserDto | null> {
     throw err
   }
 }
+
+/** "Forgot password": the server answers the same words whether or not the address is known. */
+export async function requestPasswordReset(email: string): Promise<string> {
+  const { message } = await http.post<{ message: string }>('/auth/password-reset/request', {
+    email,
+  })
+  return message
+}
+
+/** Sets the new password with the token from the mailed link. */
+export async function completePasswordReset(token: string, password: string): Promise<void> {
+  await http.post<void>('/auth/password-reset/complete', { token, password })
+}

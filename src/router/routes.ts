@@ -30,6 +30,18 @@ export const routes: RouteRecordRaw[] = [
         component: () => import('../pages/SignInPage.vue'),
         meta: { public: true, title: 'Sign in' },
       },
+      {
+        path: '/forgot-password',
+        name: 'forgot-password',
+        component: () => import('../pages/ForgotPasswordPage.vue'),
+        meta: { public: true, title: 'Forgot password' },
+      },
+      {
+        path: '/reset-password',
+        name: 'reset-password',
+        component: () => import('../pages/ResetPasswordPage.vue'),
+        meta: { public: true, title: 'Choose a new password' },
+      },
     ],
   },
   {

@@ -56,7 +56,7 @@ export async function importLocalFile(
     )
   }
   await NetworkImport.update(
-    { status: 'committing', skipInvalid: false },
+    { status: 'committing', skipInvalid: false, featuresProcessed: 0 },
     { where: { id: job.id } },
   )
   await runCommit(job.id, user.id, cfg, sequelize)

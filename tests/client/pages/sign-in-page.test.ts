@@ -18,6 +18,11 @@ async function mountPage() {
     routes: [
       { path: '/sign-in', name: 'sign-in', component: SignInPage },
       { path: '/', name: 'home', component: { template: '<div>home</div>' } },
+      {
+        path: '/forgot-password',
+        name: 'forgot-password',
+        component: { template: '<div>forgot</div>' },
+      },
     ],
   })
   await router.push('/sign-in')
@@ -154,5 +159,12 @@ describe('SignInPage', () => {
     await fillAndSubmit(wrapper, 'someone@wendmoor-water.example', 'right-password-here')
 
     expect(router.currentRoute.value.name).toBe('home')
+  })
+
+  it('when the user forgot the password, then a link leads to the reset request', async () => {
+    const { wrapper, router } = await mountPage()
+    await wrapper.find('[data-testid="sign-in-forgot"]').trigger('click')
+    await flushPromises()
+    expect(router.currentRoute.value.name).toBe('forgot-password')
   })
 })
