@@ -10,65 +10,16 @@
  * Usage: node --import tsx scripts/bench/screening-scale.ts [runs=40] [sizes=10000,100000,1000000]
  */
 import { QueryTypes } from 'sequelize'
-import type { Sequelize } from 'sequelize'
-import { parseConfig, setConfig } from '../../server/config.ts'
-import { createMigrator } from '../../server/db/migrate.ts'
-import { createSequelize } from '../../server/db/sequelize.ts'
-import { Organisation, User, initModels } from '../../server/models/index.ts'
-import {
-  createDraft,
-  submitApplication,
-  withdrawApplication,
-} from '../../server/services/applications.ts'
+import { withdrawApplication } from '../../server/services/applications.ts'
 import { findSegmentsNear, segmentsNearQuery } from '../../server/services/spatial-query.ts'
 import { crsTransform } from '../../shared/geo/crs.ts'
-import { ensureDatabase, testEnv } from '../../tests/helpers/local-env.ts'
-import { centreActivities } from './screening-scale-activities.ts'
+import { benchUsers, openCity, submitCentreApplication } from './bench-city.ts'
 import { fmt, machineLoad, percentile, printTable, ratio, timeRuns } from './bench-util.ts'
-import {
-  cityOwners,
-  loadSyntheticCity,
-  scaleDb,
-  storedCitySegments,
-  syntheticBbox,
-} from './synthetic-network.ts'
+import { centreActivities } from './screening-scale-activities.ts'
 
 const RUNS = Number(process.argv[2] ?? 40) || 40
 const SIZES = (process.argv[3] ?? '10000,100000,1000000').split(',').map(Number)
 const WARM_UP = 5
-
-async function benchUser(sequelize: Sequelize): Promise<User> {
-  initModels(sequelize)
-  const email = 'bench-scale-applicant@example.test'
-  const found = await User.findOne({ where: { email } })
-  if (found) return found
-  const org = await Organisation.create({
-    name: 'Bench civil works',
-    kind: 'contractor',
-    medium: null,
-  })
-  // One engineer per owner, so submitting opens real reviews and queues real mail.
-  for (const [medium, ownerId] of await cityOwners(sequelize)) {
-    await User.create({
-      email: `bench-scale-${medium}@example.test`,
-      name: `Bench ${medium} engineer`,
-      role: 'asset_engineer',
-      organisationId: ownerId,
-      passwordHash: 'x',
-      lockedUntil: null,
-      lastSignInAt: null,
-    })
-  }
-  return User.create({
-    email,
-    name: 'Bench applicant',
-    role: 'applicant',
-    organisationId: org.id,
-    passwordHash: 'x',
-    lockedUntil: null,
-    lastSignInAt: null,
-  })
-}
 
 interface SizeResult {
   n: number
@@ -81,22 +32,9 @@ interface SizeResult {
 }
 
 async function benchSize(n: number): Promise<SizeResult> {
-  const db = scaleDb(n)
-  ensureDatabase(db)
-  const bbox = syntheticBbox(1_000_000)
-  const cfg = parseConfig(
-    testEnv(db, { NODE_ENV: 'development', SERVICE_AREA_BBOX: bbox.join(',') }),
-  )
-  setConfig(cfg)
-  const sequelize = createSequelize(cfg)
+  const { cfg, sequelize } = await openCity(n)
   try {
-    await createMigrator(sequelize, cfg.PROJECTED_EPSG).up()
-    if ((await storedCitySegments(sequelize)) < n) {
-      console.log(`loading ${n.toLocaleString('en')} segments into ${db} …`)
-      const r = await loadSyntheticCity(sequelize, cfg.PROJECTED_EPSG, n)
-      console.log(`  wrote ${r.written.toLocaleString('en')} in ${r.seconds.toFixed(0)} s`)
-    }
-    const user = await benchUser(sequelize)
+    const { applicant } = await benchUsers(sequelize)
     const activities = centreActivities(cfg.PROJECTED_EPSG)
     const t = crsTransform(cfg.PROJECTED_EPSG)
     const pitRing = (activities[0]!.geometry as { coordinates: number[][][] }).coordinates[0]!.map(
@@ -133,27 +71,21 @@ async function benchSize(n: number): Promise<SizeResult> {
     // so the next run sees the same live works.
     let affected = 0
     const submit = await timeRuns(RUNS, WARM_UP, async (i) => {
-      const startsOn = new Date(Date.now() + 14 * 86_400_000).toISOString().slice(0, 10)
-      const endsOn = new Date(Date.now() + 20 * 86_400_000).toISOString().slice(0, 10)
-      const draft = await createDraft(sequelize, user, {
-        title: `Bench screening ${n} ${i}`,
-        siteAddress: 'Centre crossing, synthetic city',
-        contactName: 'Bench applicant',
-        contactPhone: '+49 5121 000000',
-        startsOn,
-        endsOn,
-        description: 'House connection with a crane lift and a spoil heap beside the pit.',
-        activities,
-      })
+      const { draft, submit: run } = await submitCentreApplication(
+        sequelize,
+        cfg,
+        applicant,
+        `Bench screening ${n} ${i}`,
+      )
       const t0 = process.hrtime.bigint()
-      const done = await submitApplication(sequelize, user, draft.id, draft.version)
+      const done = await run()
       const ms = Number(process.hrtime.bigint() - t0) / 1e6
       const [{ k }] = (await sequelize.query<{ k: number }>(
         'SELECT COUNT(*) AS k FROM assessments WHERE application_id = ?',
         { replacements: [draft.id], type: QueryTypes.SELECT },
       )) as [{ k: number }]
       affected = Number(k)
-      await withdrawApplication(sequelize, user, done.id, 'Benchmark run')
+      await withdrawApplication(sequelize, applicant, done.id, 'Benchmark run')
       return ms
     })
     return { n, pk, spatial, submit, found, affected, explain }
