@@ -1,8 +1,8 @@
 /**
  * API throughput on loopback: the real server (server/index.ts as a child process, its own
  * database pool, scheduler and outbox worker) on the bench city, driven by autocannon with a
- * signed-in session cookie. Floor: the public health check (session middleware and one
- * `SELECT 1`) in the same run. Endpoints: the applicant's application list and one
+ * signed-in session cookie. Floors in the same run: the public health check (no session, one
+ * `SELECT 1`) and the signed-in user's own record (session and user lookups). Endpoints: the applicant's application list and one
  * application's screening result. It reports; it does not gate.
  * Usage: node --import tsx scripts/bench/api-throughput.ts [segments=100000] [seconds=10] [connections=10]
  */
@@ -60,6 +60,7 @@ try {
     }
   }
   const floor = await run('/api/health', false)
+  const me = await run('/api/auth/me', true)
   const list = await run('/api/applications?page=1&pageSize=25', true)
   const result = await run(`/api/applications/${app.id}/screening`, true)
   printTable(
@@ -67,6 +68,7 @@ try {
     ['endpoint', 'req/s', 'share of floor', 'p50 ms', 'p99 ms', 'p99 / floor p99'],
     [
       ['GET /api/health (floor)', floor, true] as const,
+      ['GET /api/auth/me (signed-in floor)', me, false] as const,
       ['GET /api/applications (signed in)', list, false] as const,
       [`GET /api/applications/:id/screening`, result, false] as const,
     ].map(([name, r]) => [
