@@ -65,7 +65,7 @@ await sequelize.query(
   `INSERT INTO users (email, name, role, organisation_id, password_hash, active, failed_sign_ins, created_at, updated_at)
    SELECT ?, 'Bench empty engineer', 'asset_engineer', id, ?, TRUE, 0, NOW(3), NOW(3)
      FROM organisations WHERE name = 'Bench owner with one pipe' ORDER BY id LIMIT 1
-   ON DUPLICATE KEY UPDATE password_hash = VALUES(password_hash)`,
+   ON DUPLICATE KEY UPDATE password_hash = VALUES(password_hash), organisation_id = VALUES(organisation_id)`,
   { replacements: [emptyEmail, hash] },
 )
 // The floor owner holds one segment (an owner without any sees no map, only the import hint).
@@ -116,11 +116,16 @@ async function measure(cap: string | null): Promise<{ floor: Shown; big: Shown }
         page.on('request', (r) => {
           if (r.url().includes('/api/network/map-lines')) pending++
         })
-        page.on('response', (r) => {
-          if (!r.url().includes('/api/network/map-lines')) return
+        const isLines = (url: string) => url.includes('/api/network/map-lines')
+        page.on('requestfailed', (r) => {
+          if (isLines(r.url())) pending--
+        })
+        page.on('requestfinished', (r) => {
+          if (!isLines(r.url())) return
           void r
-            .json()
-            .then((b: { features: unknown[]; truncated: boolean }) => {
+            .response()
+            .then((res) => res?.json() as Promise<{ features: unknown[]; truncated: boolean }>)
+            .then((b) => {
               features += b.features.length
               truncated ||= b.truncated
             })
@@ -137,7 +142,8 @@ async function measure(cap: string | null): Promise<{ floor: Shown; big: Shown }
         for (;;) {
           await page.waitForTimeout(100)
           if (lastDone && pending === 0 && Date.now() - lastDone > 1000) break
-          if (Date.now() - t0 > 120_000) throw new Error('the map did not settle in 2 minutes')
+          if (Date.now() - t0 > 120_000)
+            throw new Error(`the map did not settle in 2 minutes (${pending} map-lines open)`)
         }
         // Until the last answer, plus the two frames that draw what it brought.
         const f0 = Date.now()
