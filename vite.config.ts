@@ -14,5 +14,25 @@ export default defineConfig({
     outDir: 'dist/client',
     emptyOutDir: true,
     chunkSizeWarningLimit: 800,
+    // Which chunk holds what: scripts/bench/client-bundle.ts reads it to size the first screen.
+    manifest: true,
+    rolldownOptions: {
+      output: {
+        codeSplitting: {
+          groups: [
+            // Vite's preload helper is a dependency of every lazy import (ol's own included);
+            // without this group it would be captured into the ol chunk, and the entry with it.
+            { name: 'preload-helper', test: /preload-helper/, priority: 2 },
+            // OpenLayers and its own dependencies in one chunk of their own: only the map
+            // screens load it, and it stays cached across releases that do not touch it.
+            {
+              name: 'ol',
+              priority: 1,
+              test: /[\\/]node_modules[\\/](ol|rbush|quickselect|earcut|pbf)[\\/]/,
+            },
+          ],
+        },
+      },
+    },
   },
 })

@@ -11,6 +11,7 @@ import { createSessionMiddleware } from './auth/session.ts'
 import type { AppConfig } from './config.ts'
 import { loggableUrl, logger, setLogLevel } from './logger.ts'
 import { allow } from './middleware/access.ts'
+import { textCompression } from './middleware/compression.ts'
 import { requireClientHeader } from './middleware/csrf.ts'
 import { apiNotFound, errorHandler } from './middleware/error-handler.ts'
 import { initModels } from './models/index.ts'
@@ -88,6 +89,9 @@ export function createApp(cfg: AppConfig, sequelize: Sequelize): CreatedApp {
       crossOriginEmbedderPolicy: false,
     }),
   )
+
+  // gzip for text (JSON, HTML, JS, CSS, SVG); PDFs, images and archives are compressed already.
+  app.use(textCompression())
 
   const { middleware: sessionMiddleware, store } = createSessionMiddleware(cfg, sequelize)
   const passport = configurePassport()

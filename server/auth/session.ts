@@ -11,6 +11,29 @@ export const SESSION_COOKIE = 'tw.sid'
  * several app processes share sessions. Cookies are httpOnly and SameSite=Lax, and Secure when
  * the request arrived over TLS (behind a proxy: set TRUST_PROXY).
  */
+/** A session's expiry is pushed out in the database at most this often per process, ms. */
+export const TOUCH_INTERVAL_MS = 60_000
+
+/**
+ * rolling: true makes express-session touch the store on every request, an UPDATE of the
+ * sessions row per API call. Skipping touches of a session this process touched less than
+ * TOUCH_INTERVAL_MS ago costs at most that much of its lifetime (hours) and saves the write on
+ * all but one request a minute. Sessions that change are still saved in full by express-session.
+ */
+function throttleTouches(store: session.Store): void {
+  const original = store.touch?.bind(store)
+  if (!original) return
+  const touched = new Map<string, number>()
+  store.touch = (sid, data, callback) => {
+    const now = Date.now()
+    const last = touched.get(sid)
+    if (last !== undefined && now - last < TOUCH_INTERVAL_MS) return callback?.()
+    if (touched.size > 50_000) touched.clear()
+    touched.set(sid, now)
+    original(sid, data, callback)
+  }
+}
+
 export function createSessionMiddleware(cfg: AppConfig, sequelize: Sequelize) {
   const SequelizeStore = connectSessionSequelize(session.Store)
   const maxAge_ms = cfg.SESSION_MAX_AGE_H * 3_600_000
@@ -37,6 +60,7 @@ export function createSessionMiddleware(cfg: AppConfig, sequelize: Sequelize) {
         storedGet(sid, callback)
       }, callback)
   }
+  throttleTouches(store)
   const middleware = session({
     name: SESSION_COOKIE,
     secret: cfg.SESSION_SECRET,

@@ -1,7 +1,7 @@
 import { SignPdf } from '@signpdf/signpdf'
-import { P12Signer } from '@signpdf/signer-p12'
 import { pdfkitAddPlaceholder } from '@signpdf/placeholder-pdfkit'
 import type PDFDocument from 'pdfkit'
+import { NativeKeySigner } from './native-signer.ts'
 import type { SigningKey } from './signing-key.ts'
 
 export interface SignatureInfo {
@@ -38,8 +38,7 @@ export async function endAndSign(
   })
   doc.end()
   const unsigned = await ended
-  const signer = new P12Signer(key.p12, { passphrase: key.passphrase })
-  return new SignPdf().sign(unsigned, signer)
+  return new SignPdf().sign(unsigned, new NativeKeySigner(key))
 }
 
 export type { PDFDocument }

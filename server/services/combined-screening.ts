@@ -152,17 +152,28 @@ export async function rescreenCombined(
   if (!segmentIds.length) return { segments: 0, pairs: 0, worsened: [] }
   await lockSegments(sequelize, segmentIds, transaction)
 
-  const rows = await Assessment.findAll({
-    where: { pipeSegmentId: { [Op.in]: segmentIds } },
-    order: [['id', 'ASC']],
-    transaction,
-  })
+  // Which applications touch these segments comes from the (segment, application) index
+  // alone; only the live ones' rows (with their engine input) are loaded. The segments'
+  // assessments of withdrawn, refused and finished works pile up over the years.
+  const touching = await sequelize.query<{ applicationId: number }>(
+    'SELECT DISTINCT application_id AS applicationId FROM assessments WHERE pipe_segment_id IN (?)',
+    { replacements: [segmentIds], type: QueryTypes.SELECT, transaction },
+  )
   const live = await liveWorks(
-    rows.map((r) => r.applicationId),
+    touching.map((r) => Number(r.applicationId)),
     today,
     transaction,
   )
-  const liveRows = rows.filter((r) => live.has(r.applicationId))
+  const liveRows = live.size
+    ? await Assessment.findAll({
+        where: {
+          pipeSegmentId: { [Op.in]: segmentIds },
+          applicationId: { [Op.in]: [...live.keys()] },
+        },
+        order: [['id', 'ASC']],
+        transaction,
+      })
+    : []
   if (!liveRows.length) return { segments: segmentIds.length, pairs: 0, worsened: [] }
   const works = await worksOf([...new Set(liveRows.map((r) => r.applicationId))], transaction)
   const pieces = await segmentPieces(sequelize, segmentIds, transaction)

@@ -57,7 +57,12 @@ export async function applicantScreening(
 ): Promise<ApplicationScreeningDto> {
   const cfg = config()
   const t = crsTransform(cfg.PROJECTED_EPSG)
-  const rows = await Assessment.findAll({ where: { applicationId }, order: [['id', 'ASC']] })
+  // The stored engine input is not shown here; leaving it out keeps the read small.
+  const rows = await Assessment.findAll({
+    where: { applicationId },
+    attributes: { exclude: ['engineInput'] },
+    order: [['id', 'ASC']],
+  })
   const owners = await Organisation.findAll({
     where: { kind: 'network_owner' },
     order: [['name', 'ASC']],

@@ -143,10 +143,12 @@ export async function screenApplication(
   )
   await Assessment.destroy({ where: { applicationId }, transaction })
   let worst: Verdict | 'not-affected' = 'not-affected'
-  for (const s of segments) {
-    const governing = s.result.checks.find((c) => c.governing) ?? null
-    await Assessment.create(
-      {
+  // One multi-row INSERT for all affected segments.
+  await Assessment.bulkCreate(
+    segments.map((s) => {
+      const governing = s.result.checks.find((c) => c.governing) ?? null
+      if (VERDICT_RANK[s.result.verdict] > VERDICT_RANK[worst]) worst = s.result.verdict
+      return {
         applicationId,
         pipeSegmentId: s.segmentId,
         ownerOrganisationId: s.ownerOrganisationId,
@@ -160,10 +162,9 @@ export async function screenApplication(
         engineInput: s.input,
         result: s.result,
         engineVersion: BASELINE_ENGINE_VERSION,
-      },
-      { transaction },
-    )
-    if (VERDICT_RANK[s.result.verdict] > VERDICT_RANK[worst]) worst = s.result.verdict
-  }
+      }
+    }),
+    { transaction },
+  )
   return { affected: segments.length, worst }
 }

@@ -81,6 +81,31 @@ function exactDistance(shape: GridShape, line: [number, number][]): number {
 }
 
 /**
+ * The candidate selection of findSegmentsNear as SQL and replacements (the scale benchmark
+ * prints its EXPLAIN to show the spatial index is used).
+ */
+export function segmentsNearQuery(
+  epsg: number,
+  shape: GridShape,
+  distance_m: number,
+  opts: { ownerOrganisationId?: number } = {},
+): { sql: string; replacements: unknown[] } {
+  const buffer_m = distance_m * 1.01 + BUFFER_MARGIN_M
+  const replacements: unknown[] = [wktOf(shape), buffer_m]
+  let ownerClause = ''
+  if (opts.ownerOrganisationId !== undefined) {
+    ownerClause = ' AND s.owner_organisation_id = ?'
+    replacements.push(opts.ownerOrganisationId)
+  }
+  return {
+    sql: `SELECT s.id, s.owner_organisation_id AS ownerOrganisationId, s.medium, ST_AsGeoJSON(s.geom) AS g
+       FROM pipe_segments s FORCE INDEX (pipe_segments_geom)
+      WHERE ST_Intersects(s.geom, ST_Buffer(ST_GeomFromText(?, ${Number(epsg)}), ?))${ownerClause}`,
+    replacements,
+  }
+}
+
+/**
  * Every stored segment within `distance_m` of the shape (projected coordinates), nearest first.
  *
  * Candidates come from the spatial index with `ST_Intersects(geom, ST_Buffer(shape, d'))`
@@ -108,24 +133,13 @@ export async function findSegmentsNear(
 ): Promise<SegmentNear[]> {
   if (!Number.isFinite(distance_m) || distance_m < 0)
     throw new RangeError(`distance_m must be a finite number >= 0 (got ${distance_m})`)
-  const buffer_m = distance_m * 1.01 + BUFFER_MARGIN_M
-  const params: unknown[] = [wktOf(shape), buffer_m]
-  let ownerClause = ''
-  if (opts.ownerOrganisationId !== undefined) {
-    ownerClause = ' AND s.owner_organisation_id = ?'
-    params.push(opts.ownerOrganisationId)
-  }
+  const { sql, replacements } = segmentsNearQuery(epsg, shape, distance_m, opts)
   const rows = await sequelize.query<{
     id: number
     ownerOrganisationId: number
     medium: PipeMedium
     g: unknown
-  }>(
-    `SELECT s.id, s.owner_organisation_id AS ownerOrganisationId, s.medium, ST_AsGeoJSON(s.geom) AS g
-       FROM pipe_segments s FORCE INDEX (pipe_segments_geom)
-      WHERE ST_Intersects(s.geom, ST_Buffer(ST_GeomFromText(?, ${Number(epsg)}), ?))${ownerClause}`,
-    { replacements: params, type: QueryTypes.SELECT },
-  )
+  }>(sql, { replacements, type: QueryTypes.SELECT })
   const names = await organisationNames(
     sequelize,
     rows.map((r) => r.ownerOrganisationId),
