@@ -100,6 +100,11 @@ const envSchema = z.object({
   KEY_DIR: z.string().optional(),
   /** Issued permit PDFs (default <DATA_DIR or .data>/permits). */
   PERMIT_DIR: z.string().optional(),
+  /**
+   * The street authority whose fee schedule prices applications. Unset: the street authority
+   * with a schedule in force that has the lowest id (one authority per deployment).
+   */
+  FEE_AUTHORITY_ORGANISATION_ID: z.coerce.number().int().positive().optional(),
   /** Receipt PDFs (default <DATA_DIR or .data>/receipts). */
   RECEIPT_DIR: z.string().optional(),
   /** Largest PDF accepted by the public document check, in megabytes. */
