@@ -99,7 +99,8 @@ export async function issueReceipt(
     fee_cents: fee.amountCents,
     refundRule:
       kind === 'refund'
-        ? `Refund rule of the fee schedule: ${before} % of the fee while no network owner has answered, ${after} % once one has.`
+        ? `Refund rule of the fee schedule: ${before} % of the fee while no network owner has answered, ${after} % once one has. ` +
+          `Paid back here: ${Math.round((amount_cents * 1000) / Math.max(1, fee.amountCents)) / 10} % of the fee.`
         : null,
     application: {
       reference: application.reference ?? `#${application.id}`,
