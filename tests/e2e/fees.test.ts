@@ -18,6 +18,9 @@ const origin = t.toGrid([9.93 + Math.random() * 0.02, 52.62 + Math.random() * 0.
 ]
 const at = (dx: number, dy: number) => t.toLonLat([origin[0] + dx, origin[1] + dy])
 
+/** The whole suite shares two cores: give the pages time to load. */
+const POLL = { timeout: 20_000, interval: 200 }
+
 let browser: Browser
 const contexts: BrowserContext[] = []
 beforeAll(async () => {
@@ -70,7 +73,7 @@ describe('fees in the browser', () => {
     await officer.locator('[data-testid="fee-save"]').click()
     await officer.locator('[data-testid="fee-in-force"]').waitFor()
     await expect
-      .poll(() => officer.locator('[data-testid="fee-in-force"]').innerText())
+      .poll(() => officer.locator('[data-testid="fee-in-force"]').innerText(), POLL)
       .toContain('EUR 95.00')
     await shot(officer, 'schedule-page', true)
 
@@ -119,14 +122,14 @@ describe('fees in the browser', () => {
       .getByText('Pay before the permit is granted')
       .click()
     await expect
-      .poll(() => officer.locator('[data-testid="fees-panel"]').innerText())
+      .poll(() => officer.locator('[data-testid="fees-panel"]').innerText(), POLL)
       .toContain('The permit office can grant the permit once this fee is paid')
     await shot(officer, 'decision-unpaid', true)
 
     await applicant.goto(`${baseUrl}/applications/${id}`, { waitUntil: 'networkidle' })
     const panel = applicant.locator('[data-testid="fees-panel"]')
     await panel.waitFor()
-    await expect.poll(() => panel.innerText()).toContain('EUR 95.00')
+    await expect.poll(() => panel.innerText(), POLL).toContain('EUR 95.00')
     await panel.scrollIntoViewIfNeeded()
     await shot(applicant, 'pay-step')
 
@@ -137,7 +140,7 @@ describe('fees in the browser', () => {
     await applicant.waitForURL((u) => u.pathname === `/applications/${id}`)
     await applicant.locator('[data-testid="fee-return-paid"]').waitFor()
     await expect
-      .poll(() => applicant.locator('[data-testid="fee-state"]').first().innerText())
+      .poll(() => applicant.locator('[data-testid="fee-state"]').first().innerText(), POLL)
       .toBe('Paid')
     expect(await applicant.locator('[data-testid="fee-receipt"]').count()).toBe(1)
     await applicant.locator('[data-testid="fees-panel"]').scrollIntoViewIfNeeded()
@@ -145,7 +148,7 @@ describe('fees in the browser', () => {
 
     await officer.reload({ waitUntil: 'networkidle' })
     await expect
-      .poll(() => officer.locator('[data-testid="fees-panel"]').innerText())
+      .poll(() => officer.locator('[data-testid="fees-panel"]').innerText(), POLL)
       .toContain('Paid')
     await shot(officer, 'decision-paid', true)
   })
