@@ -38,6 +38,8 @@ export class ApplicationFee extends Model<
   declare lastAttemptFailed: CreationOptional<boolean>
   declare paymentIntentId: string | null
   declare refundId: string | null
+  /** Reference of a payment or refund made outside the payment service (invoice, bank transfer). */
+  declare offlineReference: CreationOptional<string | null>
   declare paidAt: Date | null
   declare refundedAt: Date | null
   declare createdAt: CreationOptional<Date>
@@ -71,6 +73,7 @@ export class ApplicationFee extends Model<
         lastAttemptFailed: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
         paymentIntentId: { type: DataTypes.STRING(255), allowNull: true },
         refundId: { type: DataTypes.STRING(255), allowNull: true },
+        offlineReference: { type: DataTypes.STRING(200), allowNull: true },
         paidAt: { type: DataTypes.DATE(3), allowNull: true },
         refundedAt: { type: DataTypes.DATE(3), allowNull: true },
         createdAt: DataTypes.DATE(3),

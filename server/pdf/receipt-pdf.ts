@@ -20,6 +20,8 @@ export interface ReceiptDocumentData {
   authority: { name: string }
   schedule: { effectiveFrom: string }
   paymentReference: string | null
+  /** Paid through the payment service (else on invoice, booked by the permit office). */
+  paidOnline: boolean
   paidAt: Date | null
 }
 
@@ -134,8 +136,12 @@ export async function buildReceiptPdf(d: ReceiptDocumentData): Promise<Buffer> {
   doc.moveDown(1.5).font('Lato').fontSize(8).fillColor('#555555')
   doc.text(
     (d.kind === 'payment'
-      ? 'Paid online through the payment service; Trenchward never sees or stores card details. '
-      : 'Paid back to the card or account the fee was paid from, through the payment service. ') +
+      ? d.paidOnline
+        ? 'Paid online through the payment service; Trenchward never sees or stores card details. '
+        : 'Paid on invoice and booked by the permit office. '
+      : d.paidOnline
+        ? 'Paid back to the card or account the fee was paid from, through the payment service. '
+        : 'Paid back by the permit office by bank transfer. ') +
       `Receipt numbers run in one unbroken sequence per calendar year. Keep this ${title.toLowerCase()} with the permit file.`,
     { width },
   )

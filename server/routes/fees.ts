@@ -1,9 +1,10 @@
 import { Router } from 'express'
 import type { Sequelize } from 'sequelize'
 import { z } from 'zod'
-import { paymentTermsInputSchema } from '../../shared/schemas/fees.ts'
+import { offlineMovementInputSchema, paymentTermsInputSchema } from '../../shared/schemas/fees.ts'
 import { allow } from '../middleware/access.ts'
 import { listApplicationFees, setPaymentTerms } from '../services/application-fees.ts'
+import { recordOfflinePayment, recordOfflineRefund } from '../services/offline-payments.ts'
 import { confirmCheckout, retryRefund, startCheckout } from '../services/payments.ts'
 import { receiptDocument } from '../services/application-fees.ts'
 
@@ -33,6 +34,30 @@ export function feesRouter(sequelize: Sequelize): Router {
 
   router.post('/fees/:id/refund', allow(['permit_officer']), async (req, res) => {
     res.json(await retryRefund(sequelize, req.user!, idParam.parse(req.params).id))
+  })
+
+  router.post('/fees/:id/record-payment', allow(['permit_officer']), async (req, res) => {
+    const { id } = idParam.parse(req.params)
+    res.json(
+      await recordOfflinePayment(
+        sequelize,
+        req.user!,
+        id,
+        offlineMovementInputSchema.parse(req.body),
+      ),
+    )
+  })
+
+  router.post('/fees/:id/record-refund', allow(['permit_officer']), async (req, res) => {
+    const { id } = idParam.parse(req.params)
+    res.json(
+      await recordOfflineRefund(
+        sequelize,
+        req.user!,
+        id,
+        offlineMovementInputSchema.parse(req.body),
+      ),
+    )
   })
 
   router.get('/receipts/:id/document', payers, async (req, res) => {

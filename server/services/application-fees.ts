@@ -35,6 +35,8 @@ export function toFeeDto(
       afterReview_percent: Number(schedule.refundAfterReviewPercent),
     },
     lastAttemptFailed: fee.lastAttemptFailed,
+    paidOnline: fee.paymentIntentId !== null,
+    offlineReference: fee.offlineReference ?? null,
     paidAt: fee.paidAt ? fee.paidAt.toISOString() : null,
     refundedAt: fee.refundedAt ? fee.refundedAt.toISOString() : null,
     createdAt: fee.createdAt.toISOString(),

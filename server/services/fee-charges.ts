@@ -155,9 +155,11 @@ export async function closeApplicationFees(
     } else if (fee.state === 'paid' && fee.purpose === 'application') {
       const schedule = (await FeeSchedule.findByPk(fee.feeScheduleId, { transaction }))!
       const amount = refundAmount_cents(scheduleTerms(schedule), fee.amountCents, started)
-      if (amount > 0 && fee.paymentIntentId) {
+      if (amount > 0) {
         await fee.update({ state: 'refund_due', refundDueCents: amount }, { transaction })
-        refunds.push(fee.id)
+        // Paid online: paid back through the payment service. Paid on invoice: the office pays
+        // it back by transfer and books it (recordOfflineRefund).
+        if (fee.paymentIntentId) refunds.push(fee.id)
       }
     }
   }

@@ -272,6 +272,9 @@ export async function retryRefund(
   const fee = await ApplicationFee.findByPk(feeId)
   if (!fee) throw notFound('fee', feeId)
   if (fee.state !== 'refund_due') throw domainRule('No refund is owed on this fee')
+  if (!fee.paymentIntentId) {
+    throw domainRule('This fee was paid on invoice; pay it back by transfer and book the refund')
+  }
   await payRefunds(sequelize, [fee.id])
   const after = await ApplicationFee.findByPk(feeId)
   if (after?.state === 'refund_due') {

@@ -110,7 +110,8 @@ export async function issueReceipt(
     payer: { organisation: payer?.name ?? '', contact: application.contactName },
     authority: { name: authority?.name ?? 'Street authority' },
     schedule: { effectiveFrom: schedule.effectiveFrom },
-    paymentReference: fee.paymentIntentId,
+    paymentReference: fee.paymentIntentId ?? fee.offlineReference ?? null,
+    paidOnline: fee.paymentIntentId !== null,
     paidAt: fee.paidAt,
   })
   const dir = resolve(cfg.receiptDir)

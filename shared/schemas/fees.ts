@@ -62,5 +62,11 @@ export const feeScheduleInputSchema = z
   })
 export type FeeScheduleInput = z.infer<typeof feeScheduleInputSchema>
 
+/** The permit office books a payment or refund made outside the payment service. */
+export const offlineMovementInputSchema = z.object({
+  reference: z.string().trim().min(3, 'Give the bank transfer or invoice reference').max(200),
+})
+export type OfflineMovementInput = z.infer<typeof offlineMovementInputSchema>
+
 export const paymentTermsInputSchema = z.object({ paymentTerms: z.enum(PAYMENT_TERMS) })
 export type PaymentTermsInput = z.infer<typeof paymentTermsInputSchema>

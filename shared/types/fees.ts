@@ -131,6 +131,10 @@ export interface ApplicationFeeDto {
   refundRule: { beforeReview_percent: number; afterReview_percent: number }
   /** The last online payment attempt that did not go through, if the latest one failed. */
   lastAttemptFailed: boolean
+  /** True when paid through the payment service (its refunds go back the same way). */
+  paidOnline: boolean
+  /** Reference of a payment or refund booked by the permit office (invoice, bank transfer). */
+  offlineReference: string | null
   paidAt: string | null
   refundedAt: string | null
   createdAt: string

@@ -36,6 +36,17 @@ export function confirmCheckout(feeId: number): Promise<ApplicationFeesDto> {
   return http.post<ApplicationFeesDto>(`/fees/${feeId}/confirm`, {})
 }
 
+export function recordOfflinePayment(
+  feeId: number,
+  reference: string,
+): Promise<ApplicationFeesDto> {
+  return http.post<ApplicationFeesDto>(`/fees/${feeId}/record-payment`, { reference })
+}
+
+export function recordOfflineRefund(feeId: number, reference: string): Promise<ApplicationFeesDto> {
+  return http.post<ApplicationFeesDto>(`/fees/${feeId}/record-refund`, { reference })
+}
+
 export function retryRefund(feeId: number): Promise<ApplicationFeesDto> {
   return http.post<ApplicationFeesDto>(`/fees/${feeId}/refund`, {})
 }

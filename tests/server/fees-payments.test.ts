@@ -384,6 +384,53 @@ describe('refunds', () => {
   })
 })
 
+describe('fees paid on invoice', () => {
+  it('when the office books a transfer and the application is later withdrawn, then the receipt, the owed refund and the refund note follow', async () => {
+    const applicant = await signedInAgent(app, 'applicant')
+    const id = await submitOneDayExcavation(app, applicant.agent)
+    const feeId = (await feesOf(applicant.agent, id)).fees[0].id
+    const empty = await officer.agent
+      .post(`/api/fees/${feeId}/record-payment`)
+      .send({ reference: ' ' })
+    expect(empty.status).toBe(400)
+    expect(empty.body.error.fields).toEqual([
+      { field: 'reference', message: 'Give the bank transfer or invoice reference' },
+    ])
+    const booked = await officer.agent
+      .post(`/api/fees/${feeId}/record-payment`)
+      .send({ reference: 'BANK-2026-0042' })
+    expect(booked.status).toBe(200)
+    expect(booked.body.fees[0]).toMatchObject({
+      state: 'paid',
+      paidOnline: false,
+      offlineReference: 'BANK-2026-0042',
+    })
+    expect(booked.body.fees[0].receipts.map((r: { kind: string }) => r.kind)).toEqual(['payment'])
+    expect(
+      (await applicant.agent.post(`/api/fees/${feeId}/record-payment`).send({ reference: 'x-1-2' }))
+        .status,
+    ).toBe(403)
+
+    await applicant.agent.post(`/api/applications/${id}/withdraw`).send({})
+    const owed = (await feesOf(applicant.agent, id)).fees[0]
+    expect(owed).toMatchObject({ state: 'refund_due', refundDue_cents: SHORT_EXCAVATION_CENTS })
+    // Not through the payment service: the office pays it back and books it.
+    expect((await officer.agent.post(`/api/fees/${feeId}/refund`).send({})).status).toBe(422)
+    const refunded = await officer.agent
+      .post(`/api/fees/${feeId}/record-refund`)
+      .send({ reference: 'BANK-2026-0077' })
+    expect(refunded.status).toBe(200)
+    expect(refunded.body.fees[0]).toMatchObject({
+      state: 'refunded',
+      refunded_cents: SHORT_EXCAVATION_CENTS,
+    })
+    expect(refunded.body.fees[0].receipts.map((r: { kind: string }) => r.kind)).toEqual([
+      'payment',
+      'refund',
+    ])
+  })
+})
+
 describe('fees on permit changes', () => {
   it('when the office extends and then varies a granted permit, then the schedule’s extension and variation fees are charged', async () => {
     const applicant = await signedInAgent(app, 'applicant')
@@ -397,12 +444,10 @@ describe('fees on permit changes', () => {
       .post(`/api/permits/${granted.body.id}/extend`)
       .send({ validTo: day(9), reason: 'Rain delayed the works' })
     expect(extended.status).toBe(201)
-    const varied = await officer.agent
-      .post(`/api/permits/${extended.body.id}/vary`)
-      .send({
-        reason: 'Add a banksman',
-        conditions: [{ code: 'OFFICE-1', text: 'A banksman guides every lorry.' }],
-      })
+    const varied = await officer.agent.post(`/api/permits/${extended.body.id}/vary`).send({
+      reason: 'Add a banksman',
+      conditions: [{ code: 'OFFICE-1', text: 'A banksman guides every lorry.' }],
+    })
     expect(varied.status).toBe(201)
     const fees = (await feesOf(applicant.agent, id)).fees
     expect(
