@@ -2,7 +2,9 @@
  * Loads the invented demo scenario from demo/ (organisations, people, streets, and the pipe
  * networks in demo/networks/, imported through the real import service as each owner's
  * engineer) into an EMPTY database; it does nothing when any organisation exists, so
- * `npm start` can run it every time.
+ * `npm start` can run it every time. The street authority's invented fee schedule
+ * (demo/fee-schedules.json) is added on its own whenever no schedule exists yet, so older demo
+ * databases get it too.
  * Usage: node --import tsx scripts/seed-demo.ts   (same environment as the server)
  */
 import { readFileSync } from 'node:fs'
@@ -10,7 +12,8 @@ import { fileURLToPath } from 'node:url'
 import { dirname, join } from 'node:path'
 import { config } from '../server/config.ts'
 import { createSequelize } from '../server/db/sequelize.ts'
-import { Organisation, User, initModels } from '../server/models/index.ts'
+import { FeeSchedule, Organisation, User, initModels } from '../server/models/index.ts'
+import { feeScheduleInputSchema } from '../shared/schemas/fees.ts'
 import { importLocalFile } from '../server/services/import/import-local-file.ts'
 import { insertStreets } from '../server/services/streets.ts'
 import { createUser } from '../server/services/users.ts'
@@ -20,6 +23,9 @@ import type { OrganisationKind, Role } from '../shared/types/roles.ts'
 interface DemoPeople {
   organisations: { key: string; name: string; kind: OrganisationKind; medium?: string | null }[]
   users: { email: string; name: string; role: Role; organisationKey: string; password: string }[]
+}
+interface DemoFeeSchedules {
+  versions: unknown[]
 }
 interface DemoStreets {
   features: {
@@ -97,6 +103,37 @@ try {
     console.error(
       `[seed-demo] loaded ${people.organisations.length} organisations, ${people.users.length} users, ${n} streets, ${segments} pipe segments, ${applications} applications (${stories.granted} granted)`,
     )
+  }
+  if ((await FeeSchedule.count()) === 0) {
+    const people = readJson<DemoPeople>('people.json')
+    const office = people.organisations.find((o) => o.kind === 'street_authority')
+    const authority = office && (await Organisation.findOne({ where: { name: office.name } }))
+    const officer =
+      authority &&
+      (await User.findOne({ where: { organisationId: authority.id, role: 'permit_officer' } }))
+    if (authority && officer) {
+      const { versions } = readJson<DemoFeeSchedules>('fee-schedules.json')
+      for (const raw of versions) {
+        // The schema checks every price is there; the demo may start in the past, the UI may not.
+        const v = feeScheduleInputSchema.parse(raw)
+        await FeeSchedule.create({
+          authorityOrganisationId: authority.id,
+          effectiveFrom: v.effectiveFrom,
+          currency: v.currency,
+          entries: v.entries,
+          variationFeeCents: v.variationFee_cents,
+          extensionFeeCents: v.extensionFee_cents,
+          refundBeforeReviewPercent: v.refundBeforeReview_percent,
+          refundAfterReviewPercent: v.refundAfterReview_percent,
+          defaultPaymentTerms: v.defaultPaymentTerms,
+          note: v.note ?? null,
+          createdByUserId: officer.id,
+        })
+      }
+      console.error(
+        `[seed-demo] loaded ${versions.length} fee schedule versions for ${authority.name}`,
+      )
+    }
   }
 } finally {
   await sequelize.close()

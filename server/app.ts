@@ -25,6 +25,9 @@ import { networkRouter } from './routes/network.ts'
 import { applicationReviewsRouter } from './routes/application-reviews.ts'
 import { conditionTemplatesRouter } from './routes/condition-templates.ts'
 import { coordinationRouter } from './routes/coordination.ts'
+import { feeSchedulesRouter } from './routes/fee-schedules.ts'
+import { feesRouter } from './routes/fees.ts'
+import { paymentWebhookRouter } from './routes/payment-webhook.ts'
 import { permitOfficeRouter } from './routes/permit-office.ts'
 import { permitsRouter } from './routes/permits.ts'
 import { reviewsRouter } from './routes/reviews.ts'
@@ -96,6 +99,9 @@ export function createApp(cfg: AppConfig, sequelize: Sequelize): CreatedApp {
   const { middleware: sessionMiddleware, store } = createSessionMiddleware(cfg, sequelize)
   const passport = configurePassport()
 
+  // The payment service's webhook needs the raw body for its signature: before express.json.
+  app.use('/api/payments/webhook', paymentWebhookRouter(sequelize))
+
   const api = express.Router()
   api.use(express.json({ limit: '1mb' }))
   api.use(requireClientHeader)
@@ -118,6 +124,8 @@ export function createApp(cfg: AppConfig, sequelize: Sequelize): CreatedApp {
   api.use('/permits', permitsRouter(sequelize))
   api.use('/coordination', coordinationRouter(sequelize))
   api.use('/verify', verifyRouter)
+  api.use('/fee-schedules', feeSchedulesRouter)
+  api.use(feesRouter(sequelize))
   api.use(mapRouter(sequelize))
   api.use('/network', networkRouter(sequelize))
   api.use(apiNotFound)

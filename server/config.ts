@@ -100,8 +100,29 @@ const envSchema = z.object({
   KEY_DIR: z.string().optional(),
   /** Issued permit PDFs (default <DATA_DIR or .data>/permits). */
   PERMIT_DIR: z.string().optional(),
+  /**
+   * The street authority whose fee schedule prices applications. Unset: the street authority
+   * with a schedule in force that has the lowest id (one authority per deployment).
+   */
+  FEE_AUTHORITY_ORGANISATION_ID: z.coerce.number().int().positive().optional(),
+  /** Receipt PDFs (default <DATA_DIR or .data>/receipts). */
+  RECEIPT_DIR: z.string().optional(),
   /** Largest PDF accepted by the public document check, in megabytes. */
   VERIFY_MAX_UPLOAD_MB: z.coerce.number().positive().max(100).default(20),
+  /**
+   * Payment service secret API key (no default). Without it the applicant cannot pay online;
+   * fees are still computed and may be invoiced.
+   */
+  STRIPE_SECRET_KEY: z.string().min(8).optional(),
+  /** Secret that signs the payment service's webhooks to /api/payments/webhook (no default). */
+  STRIPE_WEBHOOK_SECRET: z.string().min(8).optional(),
+  /**
+   * Where the payment SDK sends its API calls. Unset: the real service. scripts/start and the
+   * tests point them at the local fake payment server on loopback (scripts/fake-payments.ts).
+   */
+  STRIPE_API_HOST: z.string().optional(),
+  STRIPE_API_PORT: z.coerce.number().int().min(1).max(65535).optional(),
+  STRIPE_API_PROTOCOL: z.enum(['http', 'https']).optional(),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   BCRYPT_COST: z.coerce.number().int().min(12).max(15).default(12),
   SIGN_IN_MAX_FAILURES: z.coerce.number().int().min(1).max(100).default(5),
@@ -122,6 +143,8 @@ export type AppConfig = Readonly<z.infer<typeof envSchema>> & {
   readonly keyDir: string
   /** Resolved permit PDF folder (PERMIT_DIR, else <DATA_DIR or .data>/permits). */
   readonly permitDir: string
+  /** Resolved receipt PDF folder (RECEIPT_DIR, else <DATA_DIR or .data>/receipts). */
+  readonly receiptDir: string
   /** PUBLIC_HOLIDAYS as a set, for the working-day functions. */
   readonly publicHolidays: ReadonlySet<string>
 }
@@ -140,6 +163,7 @@ export function parseConfig(env: Record<string, string | undefined>): AppConfig 
     uploadDir: c.UPLOAD_DIR ?? `${c.DATA_DIR ?? '.data'}/uploads`,
     keyDir: c.KEY_DIR ?? `${c.DATA_DIR ?? '.data'}/keys`,
     permitDir: c.PERMIT_DIR ?? `${c.DATA_DIR ?? '.data'}/permits`,
+    receiptDir: c.RECEIPT_DIR ?? `${c.DATA_DIR ?? '.data'}/receipts`,
     publicHolidays: new Set(c.PUBLIC_HOLIDAYS),
   })
 }

@@ -52,6 +52,14 @@ ensure_local_env() {
       echo "SESSION_SECRET=$(random_secret)"
     } >"$f"
   fi
+  # Keys for the local fake payment server (scripts/fake-payments.ts); added to older files too.
+  if ! grep -q '^STRIPE_SECRET_KEY=' "$f"; then
+    umask 077
+    {
+      echo "STRIPE_SECRET_KEY=sk_test_local_$(random_secret | cut -c1-24)"
+      echo "STRIPE_WEBHOOK_SECRET=whsec_local_$(random_secret | cut -c1-32)"
+    } >>"$f"
+  fi
   set -a
   # shellcheck disable=SC1090
   . "$f"

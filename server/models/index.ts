@@ -12,6 +12,10 @@ import { PasswordReset } from './password-reset.ts'
 import { PipeSegment } from './pipe-segment.ts'
 import { User } from './user.ts'
 import { ConditionTemplate } from './condition-template.ts'
+import { ApplicationFee } from './application-fee.ts'
+import { FeeSchedule } from './fee-schedule.ts'
+import { PaymentEvent } from './payment-event.ts'
+import { Receipt } from './receipt.ts'
 import { OwnerReview } from './owner-review.ts'
 import { Permit } from './permit.ts'
 import { ReviewDecision } from './review-decision.ts'
@@ -43,6 +47,7 @@ export {
   ReviewMessageAttachment,
   SegmentRerun,
 }
+export { ApplicationFee, FeeSchedule, PaymentEvent, Receipt }
 
 let initialised: Sequelize | undefined
 
@@ -96,5 +101,12 @@ export function initModels(sequelize: Sequelize): void {
   SegmentRerun.belongsTo(User, { foreignKey: 'createdByUserId', as: 'createdBy' })
   Permit.belongsTo(User, { foreignKey: 'issuedByUserId', as: 'issuedBy' })
   Permit.belongsTo(Application, { foreignKey: 'applicationId', as: 'application' })
+  FeeSchedule.initModel(sequelize)
+  ApplicationFee.initModel(sequelize)
+  PaymentEvent.initModel(sequelize)
+  Receipt.initModel(sequelize)
+  FeeSchedule.belongsTo(Organisation, { foreignKey: 'authorityOrganisationId', as: 'authority' })
+  FeeSchedule.belongsTo(User, { foreignKey: 'createdByUserId', as: 'createdBy' })
+  ApplicationFee.belongsTo(FeeSchedule, { foreignKey: 'feeScheduleId', as: 'schedule' })
   initialised = sequelize
 }

@@ -18,7 +18,9 @@ import { config } from '../config.ts'
 import { conflict, domainRule, forbidden, notFound, validationFailed } from '../errors.ts'
 import { geoJsonToGridWkt } from '../geo/wkt.ts'
 import { Activity, Application, Organisation, User } from '../models/index.ts'
+import { assessApplicationFee, closeApplicationFees } from './fee-charges.ts'
 import { recordAudit } from './audit.ts'
+import { payRefunds } from './refunds.ts'
 import { screenApplication } from './screening.ts'
 import { rescreenCombined } from './combined-screening.ts'
 import { screeningTransaction } from './segment-locks.ts'
@@ -305,6 +307,12 @@ export async function submitApplication(
     // Combined with other live works on the same segments, and theirs with this one.
     await rescreenCombined(sequelize, a.id, transaction, now)
     await openOwnerReviews(a, user.id, transaction, now)
+    const fee = await assessApplicationFee(
+      a,
+      parsed.data.activities.map((x) => x.kind),
+      transaction,
+      now,
+    )
     await recordAudit(
       {
         actorUserId: user.id,
@@ -315,6 +323,8 @@ export async function submitApplication(
           reference: a.reference,
           affectedSegments: screening.affected,
           verdict: screening.worst,
+          fee_cents: fee?.amountCents ?? null,
+          feeScheduleId: fee?.feeScheduleId ?? null,
         },
       },
       transaction,
@@ -331,7 +341,7 @@ export async function withdrawApplication(
   reason: string | undefined,
 ): Promise<ApplicationDto> {
   if (user.role !== 'applicant') throw forbidden()
-  await screeningTransaction(sequelize, async (transaction) => {
+  const refunds = await screeningTransaction(sequelize, async (transaction) => {
     const a = await loadForUser(id, user, transaction)
     if (!WITHDRAWABLE.includes(a.status))
       throw domainRule(`An application that is ${a.status} cannot be withdrawn`)
@@ -350,7 +360,10 @@ export async function withdrawApplication(
       },
       transaction,
     )
+    return closeApplicationFees(a.id, transaction)
   })
+  // Refunds go to the payment service only after the withdrawal is committed.
+  await payRefunds(sequelize, refunds)
   return toApplicationDto(await loadForUser(id, user))
 }
 

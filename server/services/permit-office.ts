@@ -26,7 +26,9 @@ import {
   Permit,
   User,
 } from '../models/index.ts'
+import { assertFeeAllowsGrant, closeApplicationFees } from './fee-charges.ts'
 import { listApplicationReviews } from './application-reviews.ts'
+import { payRefunds } from './refunds.ts'
 import { getApplication } from './applications.ts'
 import { recordAudit } from './audit.ts'
 import { userEmail } from './mail-recipients.ts'
@@ -298,6 +300,7 @@ export async function grantPermit(
     if (a.version !== input.version) {
       throw conflict('The application changed after you opened it; reload before granting')
     }
+    await assertFeeAllowsGrant(a.id, transaction)
     const m = await mergedConditions(id)
     if (m.objections.length) {
       throw domainRule(
@@ -406,7 +409,7 @@ export async function refuseApplication(
 ): Promise<ApplicationDto> {
   officer(user)
   const cfg = config()
-  await screeningTransaction(sequelize, async (transaction) => {
+  const refunds = await screeningTransaction(sequelize, async (transaction) => {
     const a = await lockApplication(id, transaction)
     if (!a || a.status === 'draft') throw notFound('application', id)
     if (!['submitted', 'with_owners', 'ready_for_decision'].includes(a.status)) {
@@ -441,6 +444,9 @@ export async function refuseApplication(
         transaction,
       )
     }
+    return closeApplicationFees(a.id, transaction)
   })
+  // Refunds go to the payment service only after the refusal is committed.
+  await payRefunds(sequelize, refunds)
   return getApplication(user, id)
 }

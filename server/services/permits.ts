@@ -10,6 +10,7 @@ import { domainRule, forbidden, notFound } from '../errors.ts'
 import { enqueueMail } from '../mail/outbox.ts'
 import { permitRevokedMail } from '../mail/templates/permit-revoked.ts'
 import { Application, AuditEvent, Organisation, Permit, User } from '../models/index.ts'
+import { chargeChangeFee } from './fee-charges.ts'
 import { applicationForParty } from './application-parties.ts'
 import { recordAudit } from './audit.ts'
 import { userEmail } from './mail-recipients.ts'
@@ -162,6 +163,14 @@ async function reissue(
       { transaction },
     )
     await permit.update({ status: 'superseded', supersededAt: now }, { transaction })
+    // The schedule in force today prices the change (date-effective, like the application fee).
+    const fee = await chargeChangeFee(
+      application,
+      next.id,
+      change.kind === 'extended' ? 'extension' : 'variation',
+      transaction,
+      now,
+    )
     await issuePermitDocument(sequelize, next, application, transaction)
     if (application.status === 'expired') {
       application.status = 'granted'
@@ -185,6 +194,7 @@ async function reissue(
           validTo,
           conditionCount: parseJson<unknown[]>(next.conditions).length,
           pdfSha256: next.pdfSha256,
+          fee_cents: fee?.amountCents ?? null,
         },
       },
       transaction,

@@ -172,7 +172,7 @@ export const routes: RouteRecordRaw[] = [
       {
         path: 'fee-schedule',
         name: 'fee-schedule',
-        component: BeingBuiltPage,
+        component: () => import('../pages/FeeSchedulePage.vue'),
         meta: {
           title: 'Fee schedule',
           navIcon: matRequestQuote,

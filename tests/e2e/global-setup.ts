@@ -4,9 +4,10 @@ import { createServer } from 'node:http'
 import type { Server } from 'node:http'
 import type { AddressInfo } from 'node:net'
 import { join } from 'node:path'
-import { randomUUID } from 'node:crypto'
+import { randomBytes, randomUUID } from 'node:crypto'
 import { QueryTypes } from 'sequelize'
 import type { TestProject } from 'vitest/node'
+import { startFakePayments } from '../../scripts/fake-payments.ts'
 import { createApp } from '../../server/app.ts'
 import { parseConfig, setConfig } from '../../server/config.ts'
 import { createMigrator } from '../../server/db/migrate.ts'
@@ -50,7 +51,8 @@ const TEST_STREETS = [
 
 /**
  * Once per run: the built client exists, the e2e database has the schema, one user per role
- * (new e-mails each run), and the real app serves client + API on a free loopback port.
+ * (new e-mails each run), the local fake payment server stands in for the payment service on
+ * a free loopback port, and the real app serves client + API on another.
  */
 export default async function setup(project: TestProject): Promise<() => Promise<void>> {
   const clientDir = join(ROOT, 'dist', 'client')
@@ -62,7 +64,18 @@ export default async function setup(project: TestProject): Promise<() => Promise
     if (r.status !== 0) throw new Error('client build failed')
   }
   ensureDatabase(E2E_DB)
-  const cfg = parseConfig(testEnv(E2E_DB, { CLIENT_DIST_DIR: clientDir }))
+  const secretKey = `sk_test_${randomBytes(12).toString('hex')}`
+  const webhookSecret = `whsec_${randomBytes(16).toString('hex')}`
+  const payments = await startFakePayments({ secretKey, webhookSecret })
+  const env = testEnv(E2E_DB, {
+    CLIENT_DIST_DIR: clientDir,
+    STRIPE_SECRET_KEY: secretKey,
+    STRIPE_WEBHOOK_SECRET: webhookSecret,
+    STRIPE_API_HOST: '127.0.0.1',
+    STRIPE_API_PORT: String(payments.port),
+    STRIPE_API_PROTOCOL: 'http',
+  })
+  const cfg = parseConfig(env)
   setConfig(cfg)
   const sequelize = createSequelize(cfg)
   await createMigrator(sequelize, cfg.PROJECTED_EPSG).up()
@@ -98,12 +111,16 @@ export default async function setup(project: TestProject): Promise<() => Promise
   const server: Server = createServer(app)
   await new Promise<void>((r) => server.listen(0, '127.0.0.1', () => r()))
   const baseUrl = `http://127.0.0.1:${(server.address() as AddressInfo).port}`
+  payments.setWebhookUrl(`${baseUrl}/api/payments/webhook`)
+  // Links in mails and the payment page's way back must point at this server's real port.
+  setConfig(parseConfig({ ...env, PUBLIC_URL: baseUrl }))
   project.provide('baseUrl', baseUrl)
   project.provide('e2eUsers', users)
 
   return async () => {
     close()
     await new Promise<void>((r) => server.close(() => r()))
+    await payments.close()
     await sequelize.close()
   }
 }
