@@ -27,6 +27,7 @@ import { coordinationRouter } from './routes/coordination.ts'
 import { permitOfficeRouter } from './routes/permit-office.ts'
 import { permitsRouter } from './routes/permits.ts'
 import { reviewsRouter } from './routes/reviews.ts'
+import { siteWorksRouter } from './routes/site-works.ts'
 import { verifyRouter } from './routes/verify.ts'
 
 export interface CreatedApp {
@@ -113,6 +114,7 @@ export function createApp(cfg: AppConfig, sequelize: Sequelize): CreatedApp {
   api.use('/permit-office', permitOfficeRouter(sequelize))
   api.use('/permits', permitsRouter(sequelize))
   api.use('/coordination', coordinationRouter(sequelize))
+  api.use('/site-works', siteWorksRouter(sequelize))
   api.use('/verify', verifyRouter)
   api.use(mapRouter(sequelize))
   api.use('/network', networkRouter(sequelize))

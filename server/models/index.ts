@@ -16,6 +16,12 @@ import { Permit } from './permit.ts'
 import { ReviewDecision } from './review-decision.ts'
 import { ReviewMessage } from './review-message.ts'
 import { SegmentRerun } from './segment-rerun.ts'
+import { ChangeReview } from './change-review.ts'
+import { EmergencyWorks } from './emergency-works.ts'
+import { PermitChangeRequest } from './permit-change-request.ts'
+import { SiteChecklist } from './site-checklist.ts'
+import { SiteEvent } from './site-event.ts'
+import { SitePhoto } from './site-photo.ts'
 
 export {
   Activity,
@@ -32,6 +38,8 @@ export {
 }
 
 export { ConditionTemplate, OwnerReview, Permit, ReviewDecision, ReviewMessage, SegmentRerun }
+
+export { ChangeReview, EmergencyWorks, PermitChangeRequest, SiteChecklist, SiteEvent, SitePhoto }
 
 let initialised: Sequelize | undefined
 
@@ -77,5 +85,18 @@ export function initModels(sequelize: Sequelize): void {
   SegmentRerun.belongsTo(User, { foreignKey: 'createdByUserId', as: 'createdBy' })
   Permit.belongsTo(User, { foreignKey: 'issuedByUserId', as: 'issuedBy' })
   Permit.belongsTo(Application, { foreignKey: 'applicationId', as: 'application' })
+  SiteEvent.initModel(sequelize)
+  SitePhoto.initModel(sequelize)
+  SiteChecklist.initModel(sequelize)
+  PermitChangeRequest.initModel(sequelize)
+  ChangeReview.initModel(sequelize)
+  EmergencyWorks.initModel(sequelize)
+  SiteEvent.belongsTo(User, { foreignKey: 'recordedByUserId', as: 'recordedBy' })
+  PermitChangeRequest.hasMany(ChangeReview, { foreignKey: 'changeRequestId', as: 'reviews' })
+  ChangeReview.belongsTo(Organisation, { foreignKey: 'ownerOrganisationId', as: 'owner' })
+  EmergencyWorks.belongsTo(Organisation, {
+    foreignKey: 'applicantOrganisationId',
+    as: 'applicantOrganisation',
+  })
   initialised = sequelize
 }
