@@ -27,6 +27,7 @@ import { coordinationRouter } from './routes/coordination.ts'
 import { permitOfficeRouter } from './routes/permit-office.ts'
 import { permitsRouter } from './routes/permits.ts'
 import { reviewsRouter } from './routes/reviews.ts'
+import { emergencyWorksRouter } from './routes/emergency-works.ts'
 import { changeRequestsRouter } from './routes/permit-change-requests.ts'
 import { siteWorksRouter } from './routes/site-works.ts'
 import { verifyRouter } from './routes/verify.ts'
@@ -117,6 +118,7 @@ export function createApp(cfg: AppConfig, sequelize: Sequelize): CreatedApp {
   api.use('/coordination', coordinationRouter(sequelize))
   api.use('/site-works', siteWorksRouter(sequelize))
   api.use('/change-requests', changeRequestsRouter(sequelize))
+  api.use('/emergency-works', emergencyWorksRouter(sequelize))
   api.use('/verify', verifyRouter)
   api.use(mapRouter(sequelize))
   api.use('/network', networkRouter(sequelize))

@@ -9,6 +9,7 @@ import {
 import { allow } from '../middleware/access.ts'
 import { uploadLimiter } from '../middleware/rate-limits.ts'
 import { saveChecklist, sitePack } from '../services/site-pack.ts'
+import { worksOnSite } from '../services/works-on-site.ts'
 import {
   addSitePhoto,
   getSiteWorks,
@@ -26,6 +27,11 @@ export function siteWorksRouter(sequelize: Sequelize): Router {
   const router = Router()
   const parties = allow(['applicant', 'asset_engineer', 'permit_officer', 'admin'])
   const applicants = allow(['applicant'])
+
+  // Before /:id: the office's map of the works on the ground today.
+  router.get('/live', allow(['permit_officer', 'admin']), async (req, res) => {
+    res.json(await worksOnSite(req.user!))
+  })
 
   router.get('/:id', parties, async (req, res) => {
     res.json(await getSiteWorks(req.user!, params.parse(req.params).id))
