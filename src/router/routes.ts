@@ -2,6 +2,7 @@ import type { RouteRecordRaw } from 'vue-router'
 import {
   matAddLocationAlt,
   matAssignment,
+  matConstruction,
   matFactCheck,
   matFolderOpen,
   matHistory,
@@ -158,6 +159,18 @@ export const routes: RouteRecordRaw[] = [
         },
       },
       {
+        path: 'works-on-site',
+        name: 'works-on-site',
+        component: () => import('../pages/WorksOnSitePage.vue'),
+        meta: {
+          title: 'Works on site',
+          navIcon: matConstruction,
+          roles: ['permit_officer'],
+          summary:
+            'Works on the ground today: on site, granted and not started, and emergency works with their follow-up deadline.',
+        },
+      },
+      {
         path: 'fee-schedule',
         name: 'fee-schedule',
         component: BeingBuiltPage,
@@ -187,6 +200,23 @@ export const routes: RouteRecordRaw[] = [
         name: 'admin-audit',
         component: () => import('../pages/AuditLogPage.vue'),
         meta: { title: 'Audit log', navIcon: matHistory, roles: ['admin'] },
+      },
+    ],
+  },
+
+  // The crew's site pack: phone first, without the desktop navigation; works offline once opened.
+  {
+    path: '/site',
+    component: () => import('../layouts/PlainLayout.vue'),
+    children: [
+      {
+        path: ':id(\\d+)',
+        name: 'site-pack',
+        component: () => import('../pages/SitePackPage.vue'),
+        meta: {
+          title: 'Site pack',
+          roles: ['applicant', 'asset_engineer', 'permit_officer', 'admin'],
+        },
       },
     ],
   },

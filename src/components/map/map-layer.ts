@@ -5,14 +5,16 @@ import type { PipeMedium } from '../../utils/pipe-media.ts'
  * What a page hands to TownMap to draw above the streets. Plain data (GeoJSON in WGS84), so
  * pages and stores never import the map library.
  */
-export type MapLayerKind = 'pipes' | 'works' | 'outline'
+export type MapLayerKind = 'pipes' | 'works' | 'outline' | 'zone' | 'live' | 'emergency'
 
 export interface MapLayerSpec {
   /** Unique per map; also reported back in feature clicks. */
   id: string
   /**
    * 'pipes': lines coloured by each feature's `medium` property (or `medium` below);
-   * 'works': planned works in the works colour; 'outline': a neutral boundary.
+   * 'works': planned works in the works colour; 'outline': a neutral boundary;
+   * 'zone': a hand-dig zone (band where no machine may dig); 'live': works on site now;
+   * 'emergency': emergency works started before any permit.
    */
   kind: MapLayerKind
   /** Shown in the legend. */
