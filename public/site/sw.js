@@ -35,14 +35,20 @@ self.addEventListener('message', (event) => {
   event.waitUntil(
     (async () => {
       let ok = true
-      const cache = await caches.open(SHELL)
-      for (const url of data.urls) {
+      const shell = await caches.open(SHELL)
+      const api = await caches.open(DATA)
+      // The page asked these before this worker controlled it; fetch and keep them now.
+      const urls = data.urls.concat(Array.isArray(data.api) ? data.api : [])
+      for (const url of urls) {
         const u = new URL(url, self.location.origin)
         if (u.origin !== self.location.origin) continue
+        const isApi = u.pathname.startsWith('/api/')
         try {
           const res = await fetch(u.href, { credentials: 'same-origin', cache: 'no-cache' })
-          if (res.ok) await cache.put(u.pathname, res)
-          else ok = false
+          if (res.ok) {
+            if (isApi) await api.put(u.pathname + u.search, res)
+            else await shell.put(u.pathname, res)
+          } else ok = false
         } catch {
           ok = false
         }
