@@ -183,7 +183,9 @@ describe('the site pack on a phone', () => {
     expect(await pack.locator('[data-testid="site-pack-state"]').textContent()).toContain('Granted, not started')
     // Phone layout: no desktop navigation drawer, nothing wider than the screen.
     expect(await page.locator('.q-drawer').count()).toBe(0)
-    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(PHONE.width)
+    expect(await page.evaluate<number>('document.documentElement.scrollWidth')).toBeLessThanOrEqual(
+      PHONE.width,
+    )
     await page.locator('[data-testid="town-map"] canvas').first().waitFor({ timeout: 15_000 })
     await page.locator('[data-testid="site-pack-offline-ready"]').waitFor({ timeout: 20_000 })
     await page.waitForTimeout(800)
@@ -218,7 +220,9 @@ describe('the site pack on a phone', () => {
     // Back online: the waiting tick goes to the server.
     await context.setOffline(false)
     await page.locator('[data-testid="site-pack-sync"]').getByText(/Last synced/).waitFor({ timeout: 15_000 })
-    await page.waitForFunction(() => !document.body.textContent?.includes('waiting to send'), null, { timeout: 15_000 })
+    await page.waitForFunction("!document.body.textContent.includes('waiting to send')", null, {
+      timeout: 15_000,
+    })
     const stored = await json<{ ticks: Record<string, { ticked: boolean }> }>(
       await page.request.get(`${baseUrl}/api/site-works/${applicationId}/pack`),
     )
