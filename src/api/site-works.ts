@@ -94,3 +94,7 @@ export function fetchEmergencyWorks(): Promise<{ items: EmergencyWorksDto[] }> {
 export function reportEmergencyWorks(input: EmergencyWorksInput) {
   return http.post<EmergencyWorksDto>('/emergency-works', input)
 }
+
+export function linkEmergencyFollowUp(id: number, applicationId: number) {
+  return http.post<EmergencyWorksDto>(`/emergency-works/${id}/follow-up`, { applicationId })
+}

@@ -3,6 +3,7 @@ import {
   matAddLocationAlt,
   matAssignment,
   matConstruction,
+  matEditCalendar,
   matFactCheck,
   matFolderOpen,
   matHistory,
@@ -13,6 +14,7 @@ import {
   matMarkEmailRead,
   matPeople,
   matRequestQuote,
+  matWarning,
 } from '@quasar/extras/material-icons'
 import './route-meta.ts'
 
@@ -69,6 +71,19 @@ export const routes: RouteRecordRaw[] = [
         name: 'application-detail',
         component: () => import('../pages/ApplicationPage.vue'),
         meta: { title: 'Application', roles: ['applicant', 'permit_officer', 'admin'] },
+      },
+
+      {
+        path: 'emergency-works',
+        name: 'emergency-works',
+        component: () => import('../pages/EmergencyWorksPage.vue'),
+        meta: {
+          title: 'Emergency works',
+          navIcon: matWarning,
+          roles: ['applicant'],
+          summary:
+            'Urgent repairs: report and start at once; nearby owners are told; the full application follows.',
+        },
       },
 
       // Network engineer
@@ -156,6 +171,18 @@ export const routes: RouteRecordRaw[] = [
           roles: ['permit_officer'],
           summary:
             'All planned and live works on one map and timeline, with works that clash in place and time picked out.',
+        },
+      },
+      {
+        path: 'change-requests',
+        name: 'change-requests',
+        component: () => import('../pages/ChangeRequestsPage.vue'),
+        meta: {
+          title: 'Permit changes',
+          navIcon: matEditCalendar,
+          roles: ['asset_engineer', 'permit_officer'],
+          summary:
+            'Requests to extend or vary a granted permit; owners answer those that touch their pipes, the office decides.',
         },
       },
       {

@@ -52,7 +52,7 @@ async function json<T>(res: { ok(): boolean; status(): number; text(): Promise<s
 }
 
 /** Engineer's network, applicant's works, acceptance with an attendance condition, grant. */
-async function grantedPermit(run: string): Promise<number> {
+async function grantedPermit(run: string): Promise<{ id: number; officer: Page }> {
   const { page: engineer } = await newPage()
   await signInAs(engineer, baseUrl, byRole('asset_engineer'))
   const api = `${baseUrl}/api/network/imports`
@@ -166,13 +166,13 @@ async function grantedPermit(run: string): Promise<number> {
       },
     }),
   )
-  return draft.id
+  return { id: draft.id, officer }
 }
 
 describe('the site pack on a phone', () => {
   it('shows validity, checklist, map, contacts and code at 390×844, keeps working offline after a reload, and sends offline ticks later', async () => {
     const run = randomUUID().slice(0, 6)
-    const applicationId = await grantedPermit(run)
+    const { id: applicationId, officer } = await grantedPermit(run)
 
     const { page, context } = await newPage(PHONE)
     await signInAs(page, baseUrl, byRole('applicant'))
@@ -204,6 +204,14 @@ describe('the site pack on a phone', () => {
     await pack.locator('[data-testid="photo-reinstatement"]').waitFor({ state: 'attached' })
     await shot(page, 'on-site')
 
+    // The permit office sees the works on site on its map, apart from granted, not started.
+    await officer.goto(`${baseUrl}/works-on-site`, { waitUntil: 'networkidle' })
+    const line = officer.locator('[data-testid="permit-list"] a', { hasText: `Valve chamber ${run}` })
+    await line.getByText('On site').waitFor()
+    await officer.locator('[data-testid="town-map"] canvas').first().waitFor()
+    await officer.waitForTimeout(800)
+    await officer.screenshot({ path: join(SCREENSHOT_DIR, 'site-pack-office-works-on-site.png') })
+
     // Offline: reload, the pack still shows from the phone's copy and says so.
     await context.setOffline(true)
     await page.reload({ waitUntil: 'domcontentloaded' })
@@ -220,9 +228,9 @@ describe('the site pack on a phone', () => {
     // Back online: the waiting tick goes to the server.
     await context.setOffline(false)
     await page.locator('[data-testid="site-pack-sync"]').getByText(/Last synced/).waitFor({ timeout: 15_000 })
-    await page.waitForFunction("!document.body.textContent.includes('waiting to send')", null, {
-      timeout: 15_000,
-    })
+    await page
+      .locator('[data-testid="site-pack-sync"]', { hasText: 'waiting to send' })
+      .waitFor({ state: 'detached', timeout: 15_000 })
     const stored = await json<{ ticks: Record<string, { ticked: boolean }> }>(
       await page.request.get(`${baseUrl}/api/site-works/${applicationId}/pack`),
     )
