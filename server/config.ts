@@ -79,7 +79,12 @@ const envSchema = z.object({
   /** Working days a touched owner has to answer a permit change request. */
   CHANGE_REVIEW_WORKING_DAYS: z.coerce.number().int().min(1).max(60).default(3),
   /** Hours within which the full application must follow emergency works. */
-  EMERGENCY_FOLLOW_UP_H: z.coerce.number().int().min(1).max(24 * 14).default(48),
+  EMERGENCY_FOLLOW_UP_H: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 14)
+    .default(48),
   /** Owners with a pipe this close to emergency works are alerted, m (at least the screening minimum). */
   EMERGENCY_ALERT_DISTANCE_M: z.coerce.number().min(1).max(500).default(25),
   /** Public holidays as a comma list of YYYY-MM-DD; they do not count as working days. */

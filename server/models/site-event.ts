@@ -9,7 +9,10 @@ import type { SiteEventKind } from '../../shared/types/site-works.ts'
 import { SITE_EVENT_KINDS } from '../../shared/types/site-works.ts'
 
 /** A planned start, the actual start or the finish of the works on a granted permit. */
-export class SiteEvent extends Model<InferAttributes<SiteEvent>, InferCreationAttributes<SiteEvent>> {
+export class SiteEvent extends Model<
+  InferAttributes<SiteEvent>,
+  InferCreationAttributes<SiteEvent>
+> {
   declare id: CreationOptional<number>
   declare applicationId: number
   declare permitId: number

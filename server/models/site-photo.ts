@@ -9,7 +9,10 @@ import type { SitePhotoKind } from '../../shared/types/site-works.ts'
 import { SITE_PHOTO_KINDS } from '../../shared/types/site-works.ts'
 
 /** A photo from site; the file lives in UPLOAD_DIR/site-photos under `storageName`. */
-export class SitePhoto extends Model<InferAttributes<SitePhoto>, InferCreationAttributes<SitePhoto>> {
+export class SitePhoto extends Model<
+  InferAttributes<SitePhoto>,
+  InferCreationAttributes<SitePhoto>
+> {
   declare id: CreationOptional<number>
   declare applicationId: number
   declare kind: SitePhotoKind

@@ -3,7 +3,11 @@ import type { Sequelize } from 'sequelize'
 import { z } from 'zod'
 import { emergencyFollowUpSchema, emergencyWorksSchema } from '../../shared/schemas/site-works.ts'
 import { allow } from '../middleware/access.ts'
-import { linkFollowUp, listEmergencyWorks, reportEmergencyWorks } from '../services/emergency-works.ts'
+import {
+  linkFollowUp,
+  listEmergencyWorks,
+  reportEmergencyWorks,
+} from '../services/emergency-works.ts'
 
 const idParam = z.object({ id: z.coerce.number().int().positive() })
 
@@ -11,12 +15,18 @@ const idParam = z.object({ id: z.coerce.number().int().positive() })
 export function emergencyWorksRouter(sequelize: Sequelize): Router {
   const router = Router()
 
-  router.get('/', allow(['applicant', 'asset_engineer', 'permit_officer', 'admin']), async (req, res) => {
-    res.json({ items: await listEmergencyWorks(req.user!) })
-  })
+  router.get(
+    '/',
+    allow(['applicant', 'asset_engineer', 'permit_officer', 'admin']),
+    async (req, res) => {
+      res.json({ items: await listEmergencyWorks(req.user!) })
+    },
+  )
 
   router.post('/', allow(['applicant']), async (req, res) => {
-    res.status(201).json(await reportEmergencyWorks(sequelize, req.user!, emergencyWorksSchema.parse(req.body)))
+    res
+      .status(201)
+      .json(await reportEmergencyWorks(sequelize, req.user!, emergencyWorksSchema.parse(req.body)))
   })
 
   router.post('/:id/follow-up', allow(['applicant']), async (req, res) => {

@@ -32,14 +32,18 @@ export function changeRequestsRouter(sequelize: Sequelize): Router {
   })
 
   router.get('/for-application/:id', parties, async (req, res) => {
-    res.json({ items: await listApplicationChangeRequests(req.user!, idParam.parse(req.params).id) })
+    res.json({
+      items: await listApplicationChangeRequests(req.user!, idParam.parse(req.params).id),
+    })
   })
 
   router.post('/for-application/:id', allow(['applicant']), async (req, res) => {
     const { id } = idParam.parse(req.params)
     res
       .status(201)
-      .json(await createChangeRequest(sequelize, req.user!, id, changeRequestSchema.parse(req.body)))
+      .json(
+        await createChangeRequest(sequelize, req.user!, id, changeRequestSchema.parse(req.body)),
+      )
   })
 
   router.get('/:id', parties, async (req, res) => {
@@ -49,14 +53,24 @@ export function changeRequestsRouter(sequelize: Sequelize): Router {
   router.post('/:id/review', allow(['asset_engineer']), async (req, res) => {
     const { id } = idParam.parse(req.params)
     res.json(
-      await decideChangeReview(sequelize, req.user!, id, changeReviewDecisionSchema.parse(req.body)),
+      await decideChangeReview(
+        sequelize,
+        req.user!,
+        id,
+        changeReviewDecisionSchema.parse(req.body),
+      ),
     )
   })
 
   router.post('/:id/decision', allow(['permit_officer']), async (req, res) => {
     const { id } = idParam.parse(req.params)
     res.json(
-      await decideChangeRequest(sequelize, req.user!, id, changeRequestDecisionSchema.parse(req.body)),
+      await decideChangeRequest(
+        sequelize,
+        req.user!,
+        id,
+        changeRequestDecisionSchema.parse(req.body),
+      ),
     )
   })
 

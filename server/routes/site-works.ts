@@ -59,7 +59,9 @@ export function siteWorksRouter(sequelize: Sequelize): Router {
 
   router.post('/:id/start', applicants, async (req, res) => {
     const { id } = params.parse(req.params)
-    res.status(201).json(await recordStart(sequelize, req.user!, id, siteEventSchema.parse(req.body)))
+    res
+      .status(201)
+      .json(await recordStart(sequelize, req.user!, id, siteEventSchema.parse(req.body)))
   })
 
   router.post('/:id/finish', applicants, async (req, res) => {

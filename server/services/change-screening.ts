@@ -34,7 +34,8 @@ const SAME_UTILISATION = 1e-6
 
 function summary(list: SegmentOutcome[]) {
   let worst: Verdict | null = null
-  for (const s of list) if (!worst || VERDICT_RANK[s.verdict] > VERDICT_RANK[worst]) worst = s.verdict
+  for (const s of list)
+    if (!worst || VERDICT_RANK[s.verdict] > VERDICT_RANK[worst]) worst = s.verdict
   return {
     segments: list.length,
     worst,
@@ -61,7 +62,13 @@ export async function compareChangedWorks(
 ): Promise<ChangeOwnerScreening[]> {
   const stored = await Assessment.findAll({
     where: { applicationId },
-    attributes: ['pipeSegmentId', 'ownerOrganisationId', 'verdict', 'utilisationWithWorks', 'result'],
+    attributes: [
+      'pipeSegmentId',
+      'ownerOrganisationId',
+      'verdict',
+      'utilisationWithWorks',
+      'result',
+    ],
     transaction,
   })
   const before = new Map<number, SegmentOutcome>(

@@ -2,7 +2,10 @@ import { format } from 'date-fns'
 import { Op } from 'sequelize'
 import type { Sequelize } from 'sequelize'
 import { crsTransform } from '../../shared/geo/crs.ts'
-import type { EmergencyFollowUpInput, EmergencyWorksInput } from '../../shared/schemas/site-works.ts'
+import type {
+  EmergencyFollowUpInput,
+  EmergencyWorksInput,
+} from '../../shared/schemas/site-works.ts'
 import type { EmergencyWorksDto } from '../../shared/types/site-works.ts'
 import { config } from '../config.ts'
 import { domainRule, forbidden, notFound, validationFailed } from '../errors.ts'
@@ -17,7 +20,11 @@ import { siteTime } from './site-works.ts'
 import { findSegmentsNear } from './spatial-query.ts'
 import type { GridShape } from './spatial-query.ts'
 
-const ACTIVITY_WORDS = { excavation: 'an excavation', crane: 'a crane set-up', fill: 'a fill or stockpile' }
+const ACTIVITY_WORDS = {
+  excavation: 'an excavation',
+  crane: 'a crane set-up',
+  fill: 'a fill or stockpile',
+}
 
 /**
  * How far from emergency works owners are alerted. Project rule: the short form carries no
@@ -31,8 +38,10 @@ export function emergencyAlertDistance_m(depth_m: number | null | undefined): nu
 }
 
 /** Emergency works are overdue when the deadline has passed and no submitted application follows. */
-export const isFollowUpOverdue = (w: Pick<EmergencyWorks, 'followUpApplicationId' | 'followUpDueAt'>, now: Date) =>
-  w.followUpApplicationId == null && w.followUpDueAt.getTime() < now.getTime()
+export const isFollowUpOverdue = (
+  w: Pick<EmergencyWorks, 'followUpApplicationId' | 'followUpDueAt'>,
+  now: Date,
+) => w.followUpApplicationId == null && w.followUpDueAt.getTime() < now.getTime()
 
 function toDto(w: EmergencyWorks, applicantName: string, now: Date): EmergencyWorksDto {
   return {
@@ -50,7 +59,8 @@ function toDto(w: EmergencyWorks, applicantName: string, now: Date): EmergencyWo
     followUpDueAt: w.followUpDueAt.toISOString(),
     followUpApplicationId: w.followUpApplicationId,
     overdue: isFollowUpOverdue(w, now),
-    alertedOwners: typeof w.alertedOwners === 'string' ? JSON.parse(w.alertedOwners) : w.alertedOwners,
+    alertedOwners:
+      typeof w.alertedOwners === 'string' ? JSON.parse(w.alertedOwners) : w.alertedOwners,
     finishedAt: w.finishedAt ? w.finishedAt.toISOString() : null,
   }
 }
@@ -70,11 +80,16 @@ export async function reportEmergencyWorks(
   const cfg = config()
   const startedAt = input.startedAt ? new Date(input.startedAt) : now
   if (startedAt.getTime() > now.getTime() + 5 * 60_000) {
-    throw validationFailed([{ field: 'startedAt', message: 'Emergency works are reported once started' }])
+    throw validationFailed([
+      { field: 'startedAt', message: 'Emergency works are reported once started' },
+    ])
   }
   if (now.getTime() - startedAt.getTime() > cfg.EMERGENCY_FOLLOW_UP_H * 3_600_000) {
     throw validationFailed([
-      { field: 'startedAt', message: `Report emergency works within ${cfg.EMERGENCY_FOLLOW_UP_H} hours of the start` },
+      {
+        field: 'startedAt',
+        message: `Report emergency works within ${cfg.EMERGENCY_FOLLOW_UP_H} hours of the start`,
+      },
     ])
   }
   const t = crsTransform(cfg.PROJECTED_EPSG)
@@ -83,7 +98,9 @@ export async function reportEmergencyWorks(
       ? { type: 'Points', coordinates: [t.toGrid(input.location.coordinates) as [number, number]] }
       : {
           type: 'Polygon',
-          rings: input.location.coordinates.map((r) => r.map((p) => t.toGrid(p) as [number, number])),
+          rings: input.location.coordinates.map((r) =>
+            r.map((p) => t.toGrid(p) as [number, number]),
+          ),
         }
   const near = await findSegmentsNear(
     sequelize,
@@ -149,7 +166,10 @@ export async function reportEmergencyWorks(
         followUpDue: siteTime(followUpDueAt),
       })
       for (const to of await organisationEmails(o.id, 'asset_engineer', transaction)) {
-        await enqueueMail({ to: [to], ...mail, related: { type: 'emergency_works', id: w.id } }, transaction)
+        await enqueueMail(
+          { to: [to], ...mail, related: { type: 'emergency_works', id: w.id } },
+          transaction,
+        )
       }
     }
     await recordAudit(
@@ -158,7 +178,10 @@ export async function reportEmergencyWorks(
         action: 'emergency-works-reported',
         entityType: 'emergency_works',
         entityId: w.id,
-        details: { alertedOwners: alerted.map((o) => o.id), followUpDueAt: followUpDueAt.toISOString() },
+        details: {
+          alertedOwners: alerted.map((o) => o.id),
+          followUpDueAt: followUpDueAt.toISOString(),
+        },
       },
       transaction,
     )
@@ -171,7 +194,10 @@ export async function reportEmergencyWorks(
  * Emergency works the user may see: the applicant's own; for the office all (overdue first,
  * then the soonest deadline); for an engineer those its organisation was alerted about.
  */
-export async function listEmergencyWorks(user: User, now = new Date()): Promise<EmergencyWorksDto[]> {
+export async function listEmergencyWorks(
+  user: User,
+  now = new Date(),
+): Promise<EmergencyWorksDto[]> {
   let rows: EmergencyWorks[]
   if (user.role === 'applicant') {
     rows = await EmergencyWorks.findAll({
@@ -229,7 +255,10 @@ export async function linkFollowUp(
     action: 'emergency-follow-up-linked',
     entityType: 'emergency_works',
     entityId: w.id,
-    details: { applicationId: a.id, late: isFollowUpOverdue({ followUpApplicationId: null, followUpDueAt: w.followUpDueAt }, now) },
+    details: {
+      applicationId: a.id,
+      late: isFollowUpOverdue({ followUpApplicationId: null, followUpDueAt: w.followUpDueAt }, now),
+    },
   })
   const org = await Organisation.findByPk(w.applicantOrganisationId, { attributes: ['name'] })
   return toDto(w, org?.name ?? '', now)

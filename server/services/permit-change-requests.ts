@@ -17,7 +17,13 @@ import { conflict, domainRule, forbidden, notFound } from '../errors.ts'
 import { enqueueMail } from '../mail/outbox.ts'
 import { changeRequestDeclinedMail } from '../mail/templates/change-request-decided.ts'
 import { changeReviewOpenedMail } from '../mail/templates/change-review-opened.ts'
-import { Application, ChangeReview, Organisation, Permit, PermitChangeRequest } from '../models/index.ts'
+import {
+  Application,
+  ChangeReview,
+  Organisation,
+  Permit,
+  PermitChangeRequest,
+} from '../models/index.ts'
 import type { User } from '../models/index.ts'
 import { applicationForParty } from './application-parties.ts'
 import { writeActivities } from './applications.ts'
@@ -33,7 +39,10 @@ import { currentPermit } from './site-works.ts'
 const OPEN = ['with_owners', 'ready_for_decision'] as const
 
 async function toDto(r: PermitChangeRequest, transaction?: Transaction): Promise<ChangeRequestDto> {
-  const a = await Application.findByPk(r.applicationId, { attributes: ['id', 'reference'], transaction })
+  const a = await Application.findByPk(r.applicationId, {
+    attributes: ['id', 'reference'],
+    transaction,
+  })
   const p = await Permit.findByPk(r.permitId, { attributes: ['number', 'validTo'], transaction })
   const reviews = await ChangeReview.findAll({
     where: { changeRequestId: r.id },
@@ -53,20 +62,18 @@ async function toDto(r: PermitChangeRequest, transaction?: Transaction): Promise
     activities: parseJson<ActivityInput[] | null>(r.activities),
     reason: r.reason,
     screening: parseJson<ChangeOwnerScreening[]>(r.screening),
-    reviews: reviews.map(
-      (v): ChangeReviewDto => ({
-        id: v.id,
-        owner: {
-          id: v.ownerOrganisationId,
-          name: (v as ChangeReview & { owner?: Organisation }).owner?.name ?? '',
-        },
-        state: v.state,
-        dueOn: v.dueOn,
-        reasons: v.reasons,
-        conditions: parseJson<{ code: string; text: string }[] | null>(v.conditions) ?? [],
-        decidedAt: v.decidedAt ? v.decidedAt.toISOString() : null,
-      }),
-    ),
+    reviews: reviews.map((v): ChangeReviewDto => ({
+      id: v.id,
+      owner: {
+        id: v.ownerOrganisationId,
+        name: (v as ChangeReview & { owner?: Organisation }).owner?.name ?? '',
+      },
+      state: v.state,
+      dueOn: v.dueOn,
+      reasons: v.reasons,
+      conditions: parseJson<{ code: string; text: string }[] | null>(v.conditions) ?? [],
+      decidedAt: v.decidedAt ? v.decidedAt.toISOString() : null,
+    })),
     createdAt: r.createdAt.toISOString(),
     decidedAt: r.decidedAt ? r.decidedAt.toISOString() : null,
     decisionNote: r.decisionNote,
@@ -92,9 +99,14 @@ export async function createChangeRequest(
   if (user.role !== 'applicant') throw forbidden()
   const cfg = config()
   const id = await sequelize.transaction(async (transaction) => {
-    const a = await Application.findByPk(applicationId, { transaction, lock: transaction.LOCK.UPDATE })
-    if (!a || a.applicantOrganisationId !== user.organisationId) throw notFound('application', applicationId)
-    if (a.status !== 'granted') throw domainRule(`Only a granted permit can be changed; this one is ${a.status}`)
+    const a = await Application.findByPk(applicationId, {
+      transaction,
+      lock: transaction.LOCK.UPDATE,
+    })
+    if (!a || a.applicantOrganisationId !== user.organisationId)
+      throw notFound('application', applicationId)
+    if (a.status !== 'granted')
+      throw domainRule(`Only a granted permit can be changed; this one is ${a.status}`)
     const permit = await currentPermit(a.id, transaction)
     if (!permit) throw domainRule('This application has no valid permit')
     if (input.validTo && input.validTo <= permit.validTo) {
@@ -107,7 +119,12 @@ export async function createChangeRequest(
       transaction,
     })
     if (open) throw conflict('A change to this permit is already being decided')
-    const screening = await compareChangedWorks(sequelize, a.id, input.activities ?? null, transaction)
+    const screening = await compareChangedWorks(
+      sequelize,
+      a.id,
+      input.activities ?? null,
+      transaction,
+    )
     const touched = screening.filter((s) => s.touched)
     const r = await PermitChangeRequest.create(
       {
@@ -152,7 +169,10 @@ export async function createChangeRequest(
         dueOn,
       })
       for (const to of await organisationEmails(s.owner.id, 'asset_engineer', transaction)) {
-        await enqueueMail({ to: [to], ...mail, related: { type: 'change_review', id: v.id } }, transaction)
+        await enqueueMail(
+          { to: [to], ...mail, related: { type: 'change_review', id: v.id } },
+          transaction,
+        )
       }
     }
     await recordAudit(
@@ -201,8 +221,12 @@ export async function listApplicationChangeRequests(
   user: User,
   applicationId: number,
 ): Promise<ChangeRequestDto[]> {
-  if (!(await applicationForParty(user, applicationId))) throw notFound('application', applicationId)
-  const rows = await PermitChangeRequest.findAll({ where: { applicationId }, order: [['id', 'DESC']] })
+  if (!(await applicationForParty(user, applicationId)))
+    throw notFound('application', applicationId)
+  const rows = await PermitChangeRequest.findAll({
+    where: { applicationId },
+    order: [['id', 'DESC']],
+  })
   return Promise.all(rows.map((r) => toDto(r)))
 }
 
@@ -270,14 +294,19 @@ export async function decideChangeReview(
       where: { changeRequestId: id, state: 'waiting' },
       transaction,
     })
-    if (!waiting) await r.update({ status: 'ready_for_decision', version: r.version + 1 }, { transaction })
+    if (!waiting)
+      await r.update({ status: 'ready_for_decision', version: r.version + 1 }, { transaction })
     await recordAudit(
       {
         actorUserId: user.id,
         action: 'change-review-decided',
         entityType: 'permit_change_request',
         entityId: id,
-        details: { changeReviewId: v.id, decision: input.decision, conditions: input.conditions.length },
+        details: {
+          changeReviewId: v.id,
+          decision: input.decision,
+          conditions: input.conditions.length,
+        },
       },
       transaction,
     )
@@ -302,7 +331,8 @@ export async function decideChangeRequest(
   if (user.role !== 'permit_officer') throw forbidden()
   const r = await PermitChangeRequest.findByPk(id)
   if (!r) throw notFound('change request', id)
-  if (r.version !== input.version) throw conflict('The change request changed since you opened it; reload')
+  if (r.version !== input.version)
+    throw conflict('The change request changed since you opened it; reload')
   if (r.status !== 'ready_for_decision') {
     throw domainRule(
       r.status === 'with_owners'
@@ -333,7 +363,10 @@ export async function decideChangeRequest(
         note: input.note || null,
       })
       for (const to of await userEmail(r.createdByUserId, transaction)) {
-        await enqueueMail({ to: [to], ...mail, related: { type: 'permit_change_request', id: r.id } }, transaction)
+        await enqueueMail(
+          { to: [to], ...mail, related: { type: 'permit_change_request', id: r.id } },
+          transaction,
+        )
       }
       await recordAudit(
         {
@@ -399,7 +432,9 @@ export async function decideChangeRequest(
   if (r.validTo) {
     const current = (await currentPermit(a.id))!
     if (current.validTo < r.validTo) {
-      resultId = (await extendPermit(sequelize, user, current.id, { validTo: r.validTo, reason }, now)).id
+      resultId = (
+        await extendPermit(sequelize, user, current.id, { validTo: r.validTo, reason }, now)
+      ).id
     }
   }
   await r.update({
@@ -424,7 +459,8 @@ export async function decideChangeRequest(
 export async function withdrawChangeRequest(user: User, id: number): Promise<ChangeRequestDto> {
   const r = await loadReadable(user, id)
   const a = await Application.findByPk(r.applicationId)
-  if (user.role !== 'applicant' || a?.applicantOrganisationId !== user.organisationId) throw forbidden()
+  if (user.role !== 'applicant' || a?.applicantOrganisationId !== user.organisationId)
+    throw forbidden()
   if (!OPEN.includes(r.status as (typeof OPEN)[number])) {
     throw domainRule(`This change request is already ${r.status}`)
   }

@@ -14,7 +14,14 @@ import type {
   SitePackTick,
 } from '../../shared/types/site-works.ts'
 import { domainRule, notFound } from '../errors.ts'
-import { Activity, Assessment, Organisation, SiteChecklist, SiteEvent, User } from '../models/index.ts'
+import {
+  Activity,
+  Assessment,
+  Organisation,
+  SiteChecklist,
+  SiteEvent,
+  User,
+} from '../models/index.ts'
 import type { Permit } from '../models/index.ts'
 import { applicationForParty } from './application-parties.ts'
 import { effectivePermitStatus } from './permit-issue.ts'
@@ -128,10 +135,14 @@ export async function sitePack(
   const handDigZones: GeoJsonCollection = {
     type: 'FeatureCollection',
     features: pipes.features.flatMap((f) => {
-      const zone = buffer(lineString(f.geometry.coordinates as [number, number][]), HAND_DIG_WIDTH_M, {
-        units: 'meters',
-        steps: 4,
-      })
+      const zone = buffer(
+        lineString(f.geometry.coordinates as [number, number][]),
+        HAND_DIG_WIDTH_M,
+        {
+          units: 'meters',
+          steps: 4,
+        },
+      )
       return zone
         ? [
             {
@@ -207,7 +218,10 @@ export async function saveChecklist(
   if (unknown.length) {
     throw domainRule(
       'Some ticks are for conditions that are not on the current permit; reload the site pack',
-      unknown.map((k) => ({ field: `ticks.${k}`, message: 'Not a condition of this permit issue' })),
+      unknown.map((k) => ({
+        field: `ticks.${k}`,
+        message: 'Not a condition of this permit issue',
+      })),
     )
   }
   return sequelize.transaction(async (transaction) => {

@@ -36,7 +36,8 @@ export async function siteRequirements(
   for (const t of templates) {
     if (t.attendanceNotice_h) {
       const prev = attendance.get(t.ownerOrganisationId)
-      if (!prev) attendance.set(t.ownerOrganisationId, { notice_h: t.attendanceNotice_h, codes: [t.code] })
+      if (!prev)
+        attendance.set(t.ownerOrganisationId, { notice_h: t.attendanceNotice_h, codes: [t.code] })
       else {
         prev.notice_h = Math.max(prev.notice_h, t.attendanceNotice_h)
         prev.codes.push(t.code)

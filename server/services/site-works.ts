@@ -107,7 +107,11 @@ function toPhotoDto(p: SitePhoto): SitePhotoDto {
 const missingPhotos = (req: SiteRequirements, photos: readonly SitePhoto[]): RequiredPhotoKind[] =>
   req.photoKinds.filter((k) => !photos.some((p) => p.kind === k))
 
-async function build(a: Application, permit: Permit, transaction?: Transaction): Promise<SiteWorksDto> {
+async function build(
+  a: Application,
+  permit: Permit,
+  transaction?: Transaction,
+): Promise<SiteWorksDto> {
   const events = await SiteEvent.findAll({
     where: { applicationId: a.id },
     order: [['id', 'ASC']],
@@ -129,7 +133,10 @@ async function build(a: Application, permit: Permit, transaction?: Transaction):
     transaction,
   )
   const last = (kind: SiteEvent['kind']) =>
-    [...events].reverse().find((e) => e.kind === kind)?.at.toISOString() ?? null
+    [...events]
+      .reverse()
+      .find((e) => e.kind === kind)
+      ?.at.toISOString() ?? null
   return {
     applicationId: a.id,
     reference: a.reference ?? `#${a.id}`,
@@ -242,7 +249,11 @@ export async function recordPlannedStart(
         action: 'site-start-planned',
         entityType: 'application',
         entityId: a.id,
-        details: { siteEventId: e.id, plannedStartAt: plannedAt.toISOString(), permitId: permit.id },
+        details: {
+          siteEventId: e.id,
+          plannedStartAt: plannedAt.toISOString(),
+          permitId: permit.id,
+        },
       },
       transaction,
     )
@@ -280,7 +291,8 @@ export async function recordStart(
   await sequelize.transaction(async (transaction) => {
     const { a, permit } = await lockForApplicant(user, applicationId, transaction)
     const events = await SiteEvent.findAll({ where: { applicationId: a.id }, transaction })
-    if (siteStateOf(events) !== 'not_started') throw domainRule('The works are already recorded as started')
+    if (siteStateOf(events) !== 'not_started')
+      throw domainRule('The works are already recorded as started')
     if (at.getTime() > now.getTime() + CLOCK_SLACK_MS) {
       throw validationFailed([{ field: 'at', message: 'A start cannot be in the future' }])
     }
@@ -317,7 +329,11 @@ export async function recordStart(
         `INSERT IGNORE INTO attendance_notices
            (site_event_id, owner_organisation_id, notice_h, sent_at, created_at)
          VALUES (?, ?, ?, ?, ?)`,
-        { replacements: [e.id, o.owner.id, o.notice_h, now, now], type: QueryTypes.INSERT, transaction },
+        {
+          replacements: [e.id, o.owner.id, o.notice_h, now, now],
+          type: QueryTypes.INSERT,
+          transaction,
+        },
       )
       await mailOwner(
         o.owner.id,
@@ -388,7 +404,10 @@ export async function recordFinish(
     if (missing.length) {
       throw domainRule(
         `The conditions ask for photos first: ${missing.map((k) => SITE_PHOTO_LABELS[k].toLowerCase()).join(', ')}`,
-        missing.map((k) => ({ field: `photos.${k}`, message: `Upload at least one ${SITE_PHOTO_LABELS[k].toLowerCase()} photo` })),
+        missing.map((k) => ({
+          field: `photos.${k}`,
+          message: `Upload at least one ${SITE_PHOTO_LABELS[k].toLowerCase()} photo`,
+        })),
       )
     }
     const e = await SiteEvent.create(
@@ -405,7 +424,8 @@ export async function recordFinish(
     // Owners who attend, and owners whose library conditions ask for photos.
     const owners = new Set(req.attendance.map((o) => o.owner.id))
     if (req.photoKinds.length) {
-      for (const c of conditions) if (c.ownerOrganisationId != null) owners.add(c.ownerOrganisationId)
+      for (const c of conditions)
+        if (c.ownerOrganisationId != null) owners.add(c.ownerOrganisationId)
     }
     const orgs = owners.size
       ? await Organisation.findAll({
@@ -440,7 +460,12 @@ export async function recordFinish(
         action: 'site-works-finished',
         entityType: 'application',
         entityId: a.id,
-        details: { siteEventId: e.id, at: at.toISOString(), permitId: permit.id, photos: photos.length },
+        details: {
+          siteEventId: e.id,
+          at: at.toISOString(),
+          permitId: permit.id,
+          photos: photos.length,
+        },
       },
       transaction,
     )
@@ -471,7 +496,9 @@ export async function addSitePhoto(
     }
     const contentType = sniffContentType(file.head)
     if (!contentType || !contentType.startsWith('image/')) {
-      throw validationFailed([{ field: 'file', message: 'Only photos (JPEG, PNG or WebP) can be added' }])
+      throw validationFailed([
+        { field: 'file', message: 'Only photos (JPEG, PNG or WebP) can be added' },
+      ])
     }
     const caption = (file.fields.caption ?? '').trim().slice(0, 300) || null
     const row = await SitePhoto.create({

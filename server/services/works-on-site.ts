@@ -36,7 +36,10 @@ export async function worksOnSite(user: User, now = new Date()): Promise<GeoJson
     ? await Activity.findAll({
         where: { applicationId: { [Op.in]: apps.map((a) => a.id) } },
         attributes: ['id', 'applicationId', 'kind', 'label', 'input'],
-        order: [['applicationId', 'ASC'], ['position', 'ASC']],
+        order: [
+          ['applicationId', 'ASC'],
+          ['position', 'ASC'],
+        ],
       })
     : []
   const appsById = new Map(apps.map((a) => [a.id, a]))
@@ -61,10 +64,16 @@ export async function worksOnSite(user: User, now = new Date()): Promise<GeoJson
         state,
         stateLabel: SITE_STATE_LABELS[state],
       },
-      geometry: parseJson<ActivityInput>(x.input).geometry as { type: string; coordinates: unknown },
+      geometry: parseJson<ActivityInput>(x.input).geometry as {
+        type: string
+        coordinates: unknown
+      },
     }
   })
-  const emergencies = await EmergencyWorks.findAll({ where: { finishedAt: null }, order: [['id', 'ASC']] })
+  const emergencies = await EmergencyWorks.findAll({
+    where: { finishedAt: null },
+    order: [['id', 'ASC']],
+  })
   for (const w of emergencies) {
     features.push({
       type: 'Feature',

@@ -16,7 +16,9 @@ export type PlannedStartInput = z.infer<typeof plannedStartSchema>
 export const siteEventSchema = z.object({ at: isoTime.optional(), note })
 export type SiteEventInput = z.infer<typeof siteEventSchema>
 
-export const sitePhotoKindSchema = z.enum(SITE_PHOTO_KINDS, { message: 'Choose what the photo shows' })
+export const sitePhotoKindSchema = z.enum(SITE_PHOTO_KINDS, {
+  message: 'Choose what the photo shows',
+})
 export const requiredPhotoKindsSchema = z.array(z.enum(REQUIRED_PHOTO_KINDS)).max(2)
 
 export const siteChecklistSchema = z.object({
@@ -28,7 +30,11 @@ export type SiteChecklistInput = z.infer<typeof siteChecklistSchema>
 export const changeRequestSchema = z
   .object({
     validTo: isoDate.optional(),
-    activities: z.array(activityInputSchema).min(1, 'Keep at least one activity').max(20).optional(),
+    activities: z
+      .array(activityInputSchema)
+      .min(1, 'Keep at least one activity')
+      .max(20)
+      .optional(),
     reason: z.string().trim().min(3, 'Say why the change is needed').max(2000),
   })
   .superRefine((v, ctx) => {

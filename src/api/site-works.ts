@@ -60,7 +60,12 @@ export function uploadSitePhoto(
   kind: SitePhotoKind,
   onProgress: (fraction: number) => void,
 ): UploadHandle<SitePhotoDto> {
-  return uploadMultipart<SitePhotoDto>(`/site-works/${applicationId}/photos`, file, { kind }, onProgress)
+  return uploadMultipart<SitePhotoDto>(
+    `/site-works/${applicationId}/photos`,
+    file,
+    { kind },
+    onProgress,
+  )
 }
 
 export function fetchWorksOnSite(): Promise<GeoJsonCollection> {
@@ -72,7 +77,9 @@ export function fetchChangeRequests(): Promise<{ items: ChangeRequestDto[] }> {
 }
 
 export function fetchApplicationChangeRequests(applicationId: number) {
-  return http.get<{ items: ChangeRequestDto[] }>(`/change-requests/for-application/${applicationId}`)
+  return http.get<{ items: ChangeRequestDto[] }>(
+    `/change-requests/for-application/${applicationId}`,
+  )
 }
 
 export function createChangeRequest(applicationId: number, input: ChangeRequestInput) {

@@ -30,7 +30,8 @@ function write(k: string, v: unknown): void {
   }
 }
 
-export const loadStoredPack = (applicationId: number) => read<StoredPack>(key(applicationId, 'pack'))
+export const loadStoredPack = (applicationId: number) =>
+  read<StoredPack>(key(applicationId, 'pack'))
 
 export function storePack(applicationId: number, pack: SitePackDto, syncedAt: Date): void {
   write(key(applicationId, 'pack'), { pack, syncedAt: syncedAt.toISOString() } satisfies StoredPack)

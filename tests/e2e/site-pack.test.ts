@@ -4,7 +4,13 @@ import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { crsTransform } from '../../shared/geo/crs.ts'
 import { featureCollection, lineFeature, pe100Properties } from '../helpers/network-fixtures.ts'
-import { SCREENSHOT_DIR, isoInDays, launchBrowser, openPage, signIn as signInAs } from './browser.ts'
+import {
+  SCREENSHOT_DIR,
+  isoInDays,
+  launchBrowser,
+  openPage,
+  signIn as signInAs,
+} from './browser.ts'
 
 const CLIENT = { 'X-Trenchward-Client': '1' }
 const PHONE = { width: 390, height: 844 }
@@ -15,7 +21,10 @@ const byRole = (role: (typeof users)[number]['role']) => users.find((u) => u.rol
 
 const t = crsTransform(25832)
 /** A spot of its own, so no other test's pipes join in. */
-const origin = t.toGrid([9.9 + Math.random() * 0.02, 52.57 + Math.random() * 0.01]) as [number, number]
+const origin = t.toGrid([9.9 + Math.random() * 0.02, 52.57 + Math.random() * 0.01]) as [
+  number,
+  number,
+]
 const at = (dx: number, dy: number) => t.toLonLat([origin[0] + dx, origin[1] + dy])
 
 /** A 1×1 PNG (signature, IHDR, IDAT, IEND). */
@@ -45,7 +54,11 @@ async function newPage(viewport = { width: 1440, height: 900 }) {
 const shot = (page: Page, name: string, fullPage = false) =>
   page.screenshot({ path: join(SCREENSHOT_DIR, `site-pack-${name}.png`), fullPage })
 
-async function json<T>(res: { ok(): boolean; status(): number; text(): Promise<string> }): Promise<T> {
+async function json<T>(res: {
+  ok(): boolean
+  status(): number
+  text(): Promise<string>
+}): Promise<T> {
   const text = await res.text()
   if (!res.ok()) throw new Error(`${res.status()}: ${text}`)
   return JSON.parse(text) as T
@@ -78,10 +91,15 @@ async function grantedPermit(run: string): Promise<{ id: number; officer: Page }
     }
     throw new Error(`import never reached ${status}`)
   }
-  await json(await engineer.request.post(`${api}/${job.id}/validate`, { headers: CLIENT, data: {} }))
+  await json(
+    await engineer.request.post(`${api}/${job.id}/validate`, { headers: CLIENT, data: {} }),
+  )
   await waitFor('validated')
   await json(
-    await engineer.request.post(`${api}/${job.id}/commit`, { headers: CLIENT, data: { skipInvalid: false } }),
+    await engineer.request.post(`${api}/${job.id}/commit`, {
+      headers: CLIENT,
+      data: { skipInvalid: false },
+    }),
   )
   await waitFor('committed')
   const tpl = await json<{ id: number; code: string }>(
@@ -145,7 +163,11 @@ async function grantedPermit(run: string): Promise<{ id: number; officer: Page }
         version: 0,
         conditions: [
           { source: 'library', code: tpl.code, templateId: tpl.id },
-          { source: 'own', code: 'backfill-sand', text: 'Bed and surround the main in sand before backfilling.' },
+          {
+            source: 'own',
+            code: 'backfill-sand',
+            text: 'Bed and surround the main in sand before backfilling.',
+          },
         ],
       },
     }),
@@ -153,7 +175,9 @@ async function grantedPermit(run: string): Promise<{ id: number; officer: Page }
   const { page: officer } = await newPage()
   await signInAs(officer, baseUrl, byRole('permit_officer'))
   const decision = await json<{ version: number }>(
-    await officer.request.get(`${baseUrl}/api/permit-office/applications/${draft.id}/decision-draft`),
+    await officer.request.get(
+      `${baseUrl}/api/permit-office/applications/${draft.id}/decision-draft`,
+    ),
   )
   await json(
     await officer.request.post(`${baseUrl}/api/permit-office/applications/${draft.id}/grant`, {
@@ -179,8 +203,12 @@ describe('the site pack on a phone', () => {
     await page.goto(`${baseUrl}/site/${applicationId}`, { waitUntil: 'networkidle' })
     const pack = page.locator('[data-testid="site-pack"]')
     await pack.locator('[data-testid="site-pack-validity"]').waitFor()
-    expect(await pack.locator('[data-testid="site-pack-validity"]').textContent()).toMatch(/Valid — 14 days left/)
-    expect(await pack.locator('[data-testid="site-pack-state"]').textContent()).toContain('Granted, not started')
+    expect(await pack.locator('[data-testid="site-pack-validity"]').textContent()).toMatch(
+      /Valid — 14 days left/,
+    )
+    expect(await pack.locator('[data-testid="site-pack-state"]').textContent()).toContain(
+      'Granted, not started',
+    )
     // Phone layout: no desktop navigation drawer, nothing wider than the screen.
     expect(await page.locator('.q-drawer').count()).toBe(0)
     expect(await page.evaluate<number>('document.documentElement.scrollWidth')).toBeLessThanOrEqual(
@@ -206,7 +234,9 @@ describe('the site pack on a phone', () => {
 
     // The permit office sees the works on site on its map, apart from granted, not started.
     await officer.goto(`${baseUrl}/works-on-site`, { waitUntil: 'networkidle' })
-    const line = officer.locator('[data-testid="permit-list"] a', { hasText: `Valve chamber ${run}` })
+    const line = officer.locator('[data-testid="permit-list"] a', {
+      hasText: `Valve chamber ${run}`,
+    })
     await line.getByText('On site').waitFor()
     await officer.locator('[data-testid="town-map"] canvas').first().waitFor()
     await officer.waitForTimeout(800)
@@ -216,18 +246,28 @@ describe('the site pack on a phone', () => {
     await context.setOffline(true)
     await page.reload({ waitUntil: 'domcontentloaded' })
     await pack.locator('[data-testid="site-pack-validity"]').waitFor({ timeout: 15_000 })
-    expect(await page.locator('[data-testid="site-pack-sync"]').textContent()).toMatch(/Offline — showing the copy from/)
-    expect(await pack.locator('[data-testid="site-pack-checklist"]').textContent()).toContain('Bed and surround the main in sand')
+    expect(await page.locator('[data-testid="site-pack-sync"]').textContent()).toMatch(
+      /Offline — showing the copy from/,
+    )
+    expect(await pack.locator('[data-testid="site-pack-checklist"]').textContent()).toContain(
+      'Bed and surround the main in sand',
+    )
     expect(await pack.locator('[data-testid="site-pack-verify"] svg').count()).toBe(1)
     await ticks.nth(1).click()
-    await page.locator('[data-testid="site-pack-sync"]').getByText('1 tick waiting to send').waitFor()
+    await page
+      .locator('[data-testid="site-pack-sync"]')
+      .getByText('1 tick waiting to send')
+      .waitFor()
     await page.waitForTimeout(500)
     await shot(page, 'offline')
     await shot(page, 'offline-full', true)
 
     // Back online: the waiting tick goes to the server.
     await context.setOffline(false)
-    await page.locator('[data-testid="site-pack-sync"]').getByText(/Last synced/).waitFor({ timeout: 15_000 })
+    await page
+      .locator('[data-testid="site-pack-sync"]')
+      .getByText(/Last synced/)
+      .waitFor({ timeout: 15_000 })
     await page
       .locator('[data-testid="site-pack-sync"]', { hasText: 'waiting to send' })
       .waitFor({ state: 'detached', timeout: 15_000 })

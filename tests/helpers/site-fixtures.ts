@@ -29,7 +29,11 @@ export async function grantedWorks(app: TestApp, opts: { notice_h?: number | nul
   const net = await buildTwoOwnerNetwork(app)
   const applicant = await signedInAgent(app, 'applicant')
   const officer = await signedInAgent(app, 'permit_officer')
-  const applicationId = await submitApplication(applicant.agent, worksNearBoth(net.origin), 'Site test')
+  const applicationId = await submitApplication(
+    applicant.agent,
+    worksNearBoth(net.origin),
+    'Site test',
+  )
   const code = unique('attend').toLowerCase()
   const tpl = await net.w.agent.post('/api/condition-templates').send({
     code,
@@ -57,7 +61,9 @@ export async function grantedWorks(app: TestApp, opts: { notice_h?: number | nul
         .send({ decision: 'accepted', version: 0 })
     ).status,
   ).toBe(200)
-  const draft = await officer.agent.get(`/api/permit-office/applications/${applicationId}/decision-draft`)
+  const draft = await officer.agent.get(
+    `/api/permit-office/applications/${applicationId}/decision-draft`,
+  )
   const granted = await officer.agent
     .post(`/api/permit-office/applications/${applicationId}/grant`)
     .send({ version: draft.body.version, validFrom: day(0), validTo: day(21) })

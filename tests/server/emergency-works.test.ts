@@ -1,6 +1,13 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { EmergencyWorks } from '../../server/models/index.ts'
-import { at, box, buildTwoOwnerNetwork, permitDirs, submitApplication, worksNearBoth } from '../helpers/review-fixtures.ts'
+import {
+  at,
+  box,
+  buildTwoOwnerNetwork,
+  permitDirs,
+  submitApplication,
+  worksNearBoth,
+} from '../helpers/review-fixtures.ts'
 import { grantedWorks, mailsTo } from '../helpers/site-fixtures.ts'
 import { signedInAgent, startTestApp } from '../helpers/test-app.ts'
 import type { TestApp } from '../helpers/test-app.ts'
@@ -45,26 +52,37 @@ describe('POST /api/emergency-works', () => {
 
     // The officer sees it; once the deadline has passed it is overdue and counted at home.
     const listed = await officer.agent.get('/api/emergency-works')
-    expect(listed.body.items.find((w: { id: number }) => w.id === res.body.id)).toMatchObject({ overdue: false })
+    expect(listed.body.items.find((w: { id: number }) => w.id === res.body.id)).toMatchObject({
+      overdue: false,
+    })
     await EmergencyWorks.update(
       { followUpDueAt: new Date(Date.now() - 60_000) },
       { where: { id: res.body.id } },
     )
     const late = await officer.agent.get('/api/emergency-works')
     expect(late.body.items[0]).toMatchObject({ overdue: true })
-    expect(late.body.items.find((w: { id: number }) => w.id === res.body.id)).toMatchObject({ overdue: true })
+    expect(late.body.items.find((w: { id: number }) => w.id === res.body.id)).toMatchObject({
+      overdue: true,
+    })
     const home = await officer.agent.get('/api/home')
-    const item = (home.body.items ?? home.body).find((i: { key: string }) => i.key === 'emergency-overdue')
+    const item = (home.body.items ?? home.body).find(
+      (i: { key: string }) => i.key === 'emergency-overdue',
+    )
     expect(item.count).toBeGreaterThanOrEqual(1)
     const map = await officer.agent.get('/api/site-works/live')
     expect(
       map.body.features.find(
-        (f: { properties: { emergencyWorksId?: number } }) => f.properties.emergencyWorksId === res.body.id,
+        (f: { properties: { emergencyWorksId?: number } }) =>
+          f.properties.emergencyWorksId === res.body.id,
       ).properties,
     ).toMatchObject({ state: 'emergency', overdue: true })
 
     // The full application follows: linked, no longer overdue.
-    const followId = await submitApplication(applicant.agent, [worksNearBoth(net.origin)[0]], 'Burst repair')
+    const followId = await submitApplication(
+      applicant.agent,
+      [worksNearBoth(net.origin)[0]],
+      'Burst repair',
+    )
     const linked = await applicant.agent
       .post(`/api/emergency-works/${res.body.id}/follow-up`)
       .send({ applicationId: followId })
@@ -98,14 +116,20 @@ describe('GET /api/site-works/live', () => {
   it('when works have started on one permit and not on another, then the map tells on site from granted, not started', async () => {
     const a = await grantedWorks(app, { notice_h: null })
     const b = await grantedWorks(app, { notice_h: null })
-    expect((await a.applicant.agent.post(`/api/site-works/${a.applicationId}/start`).send({})).status).toBe(201)
+    expect(
+      (await a.applicant.agent.post(`/api/site-works/${a.applicationId}/start`).send({})).status,
+    ).toBe(201)
     const map = await a.officer.agent.get('/api/site-works/live')
     expect(map.status).toBe(200)
     const stateOf = (id: number) =>
-      map.body.features.find((f: { properties: { applicationId?: number } }) => f.properties.applicationId === id)
-        .properties
+      map.body.features.find(
+        (f: { properties: { applicationId?: number } }) => f.properties.applicationId === id,
+      ).properties
     expect(stateOf(a.applicationId)).toMatchObject({ state: 'on_site', stateLabel: 'On site' })
-    expect(stateOf(b.applicationId)).toMatchObject({ state: 'not_started', stateLabel: 'Granted, not started' })
+    expect(stateOf(b.applicationId)).toMatchObject({
+      state: 'not_started',
+      stateLabel: 'Granted, not started',
+    })
     expect((await a.applicant.agent.get('/api/site-works/live')).status).toBe(403)
   })
 })

@@ -33,7 +33,10 @@ describe('POST /api/change-requests/for-application/:id', () => {
     expect(created.status).toBe(201)
     expect(created.body.status).toBe('with_owners')
     const byOwner = new Map(
-      created.body.screening.map((s: { owner: { id: number }; touched: boolean }) => [s.owner.id, s]),
+      created.body.screening.map((s: { owner: { id: number }; touched: boolean }) => [
+        s.owner.id,
+        s,
+      ]),
     )
     expect(byOwner.get(w.net.gas.id)).toMatchObject({ touched: true })
     expect(byOwner.get(w.net.water.id)).toMatchObject({
@@ -41,7 +44,10 @@ describe('POST /api/change-requests/for-application/:id', () => {
       why: expect.stringContaining('exactly the same result'),
     })
     expect(created.body.reviews).toEqual([
-      expect.objectContaining({ owner: { id: w.net.gas.id, name: w.net.gas.name }, state: 'waiting' }),
+      expect.objectContaining({
+        owner: { id: w.net.gas.id, name: w.net.gas.name },
+        state: 'waiting',
+      }),
     ])
     // The gas engineers are mailed; the water engineers are not.
     expect((await mailsTo(w.net.g.email)).at(-1)!.subject).toMatch(/touches your pipes/)
@@ -55,8 +61,11 @@ describe('POST /api/change-requests/for-application/:id', () => {
       ).status,
     ).toBe(409)
     expect(
-      (await w.net.w.agent.post(`/api/change-requests/${created.body.id}/review`).send({ decision: 'accepted' }))
-        .status,
+      (
+        await w.net.w.agent
+          .post(`/api/change-requests/${created.body.id}/review`)
+          .send({ decision: 'accepted' })
+      ).status,
     ).toBe(404)
 
     // The office cannot decide before the gas owner answers.
@@ -65,10 +74,14 @@ describe('POST /api/change-requests/for-application/:id', () => {
       .send({ version: created.body.version, decision: 'grant' })
     expect(early.status).toBe(422)
 
-    const answered = await w.net.g.agent.post(`/api/change-requests/${created.body.id}/review`).send({
-      decision: 'accepted_with_conditions',
-      conditions: [{ code: 'mats-on-plates', text: 'Outrigger mats on steel plates over the gas main.' }],
-    })
+    const answered = await w.net.g.agent
+      .post(`/api/change-requests/${created.body.id}/review`)
+      .send({
+        decision: 'accepted_with_conditions',
+        conditions: [
+          { code: 'mats-on-plates', text: 'Outrigger mats on steel plates over the gas main.' },
+        ],
+      })
     expect(answered.status).toBe(200)
     expect(answered.body.status).toBe('ready_for_decision')
     const queue = await w.officer.agent.get('/api/change-requests')

@@ -55,7 +55,9 @@ describe('works on site: planned start, start, finish', () => {
     const waterBefore = (await mailsTo(w.net.w.email)).length
     await sendAttendanceNoticesOnce(app.sequelize, app.config, new Date(due.getTime() - 1000))
     expect(await mailsTo(w.net.w.email)).toHaveLength(waterBefore)
-    expect(await sendAttendanceNoticesOnce(app.sequelize, app.config, due)).toBeGreaterThanOrEqual(1)
+    expect(await sendAttendanceNoticesOnce(app.sequelize, app.config, due)).toBeGreaterThanOrEqual(
+      1,
+    )
     const notice = (await mailsTo(w.net.w.email)).at(-1)!
     expect(notice.subject).toMatch(/^Works start planned/)
     expect(notice.subject).toContain(w.permit.number)
@@ -104,7 +106,9 @@ describe('works on site: planned start, start, finish', () => {
     expect(finished.status).toBe(201)
     expect(finished.body).toMatchObject({ state: 'finished', missingPhotoKinds: [] })
     const finishMail = (await mailsTo(w.net.w.email)).at(-1)!
-    expect(finishMail.subject).toBe(`Works finished: ${w.permit.number} (${finished.body.reference})`)
+    expect(finishMail.subject).toBe(
+      `Works finished: ${w.permit.number} (${finished.body.reference})`,
+    )
     expect(finishMail.textBody).toContain('reinstatement 1')
     expect(finishMail.textBody).toContain('Site clear')
   })
@@ -114,10 +118,16 @@ describe('works on site: planned start, start, finish', () => {
     const base = `/api/site-works/${w.applicationId}`
     const plannedAt = hours(2 + app.config.REMINDER_INTERVAL_S / 3600 / 2)
     expect(
-      (await w.applicant.agent.post(`${base}/planned-start`).send({ plannedStartAt: plannedAt.toISOString() })).status,
+      (
+        await w.applicant.agent
+          .post(`${base}/planned-start`)
+          .send({ plannedStartAt: plannedAt.toISOString() })
+      ).status,
     ).toBe(201)
     // The scheduler runs now: half an interval past 2 h ahead is inside 2 h plus one interval.
-    expect(await sendAttendanceNoticesOnce(app.sequelize, app.config, new Date())).toBeGreaterThanOrEqual(1)
+    expect(
+      await sendAttendanceNoticesOnce(app.sequelize, app.config, new Date()),
+    ).toBeGreaterThanOrEqual(1)
     // Only the applicant records works, never an owner or the office.
     expect((await w.net.w.agent.post(`${base}/start`).send({})).status).toBe(403)
     expect((await w.officer.agent.post(`${base}/start`).send({})).status).toBe(403)
@@ -128,7 +138,9 @@ describe('works on site: planned start, start, finish', () => {
   it('when a start is sent in the future or outside the permit, then it is refused naming the field', async () => {
     const w = await grantedWorks(app, { notice_h: null })
     const base = `/api/site-works/${w.applicationId}`
-    const future = await w.applicant.agent.post(`${base}/start`).send({ at: hours(2).toISOString() })
+    const future = await w.applicant.agent
+      .post(`${base}/start`)
+      .send({ at: hours(2).toISOString() })
     expect(future.status).toBe(400)
     expect(future.body.error.fields[0].field).toBe('at')
     const bad = await w.applicant.agent.post(`${base}/start`).send({ at: 'yesterday' })

@@ -54,7 +54,11 @@ export function createEmergencyStyle(): Style {
   return new Style({
     stroke: new Stroke({ color: EMERGENCY_COLOUR, width: 3 }),
     fill,
-    image: new Circle({ radius: 9, fill, stroke: new Stroke({ color: EMERGENCY_COLOUR, width: 3 }) }),
+    image: new Circle({
+      radius: 9,
+      fill,
+      stroke: new Stroke({ color: EMERGENCY_COLOUR, width: 3 }),
+    }),
     zIndex: 340,
   })
 }
