@@ -1,6 +1,6 @@
 import { rm } from 'node:fs/promises'
 import type { IncomingMessage } from 'node:http'
-import { basename, join, resolve, sep } from 'node:path'
+import { basename, resolve } from 'node:path'
 import { format } from 'date-fns'
 import { Op, QueryTypes } from 'sequelize'
 import type { Sequelize, Transaction } from 'sequelize'
@@ -30,6 +30,8 @@ import { parseJson } from './review-dto.ts'
 import { siteRequirements } from './site-requirements.ts'
 import { sniffContentType } from './uploads/content-type.ts'
 import { receiveFile } from './uploads/receive-file.ts'
+import { storedFile } from './uploads/stored-file.ts'
+import type { StoredFile } from './uploads/stored-file.ts'
 
 /** How a time reads in site mails and messages (server time zone). */
 export const siteTime = (d: Date) => format(d, 'EEE d MMM yyyy, HH:mm')
@@ -531,12 +533,9 @@ export async function sitePhotoFile(
   user: User,
   applicationId: number,
   photoId: number,
-): Promise<{ path: string; filename: string; contentType: string }> {
+): Promise<StoredFile> {
   await loadForParty(user, applicationId)
   const row = await SitePhoto.findOne({ where: { id: photoId, applicationId } })
   if (!row) throw notFound('photo', photoId)
-  const dir = photoDir()
-  const path = resolve(join(dir, row.storageName))
-  if (!path.startsWith(dir + sep)) throw notFound('photo', photoId)
-  return { path, filename: row.originalFilename, contentType: row.contentType }
+  return storedFile(photoDir(), row, 'photo', photoId)
 }

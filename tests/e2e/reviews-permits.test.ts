@@ -13,8 +13,7 @@ import {
   openPage,
   signIn as signInAs,
 } from './browser.ts'
-
-const CLIENT = { 'X-Trenchward-Client': '1' }
+import { CLIENT, importNetwork as importNetworkAs, json } from './api-helpers.ts'
 
 const baseUrl = inject('baseUrl').replace(/\/$/, '')
 const users = inject('e2eUsers')
@@ -55,6 +54,8 @@ async function signIn(page: Page, role: (typeof users)[number]['role']): Promise
   await signInAs(page, baseUrl, byRole(role))
 }
 
+const importNetwork = (page: Page, text: string) => importNetworkAs(page, baseUrl, text)
+
 const shot = (page: Page, name: string, fullPage = false) =>
   page.screenshot({ path: join(SCREENSHOT_DIR, `reviews-${name}.png`), fullPage })
 
@@ -62,52 +63,6 @@ async function settleMap(page: Page): Promise<void> {
   await page.locator('[data-testid="town-map"] canvas').first().waitFor({ timeout: 15_000 })
   await page.waitForLoadState('networkidle')
   await page.waitForTimeout(800)
-}
-
-async function json<T>(res: {
-  ok(): boolean
-  status(): number
-  text(): Promise<string>
-}): Promise<T> {
-  const text = await res.text()
-  if (!res.ok()) throw new Error(`${res.status()}: ${text}`)
-  return JSON.parse(text) as T
-}
-
-/** Upload, validate and commit a GeoJSON network through the engineer's session. */
-async function importNetwork(page: Page, text: string): Promise<void> {
-  const api = `${baseUrl}/api/network/imports`
-  const job = await json<{ id: number }>(
-    await page.request.post(api, {
-      headers: CLIENT,
-      multipart: {
-        file: {
-          name: 'mains.geojson',
-          mimeType: 'application/geo+json',
-          buffer: Buffer.from(text),
-        },
-      },
-    }),
-  )
-  const waitFor = async (done: string) => {
-    for (let i = 0; i < 300; i++) {
-      const j = await json<{ status: string }>(await page.request.get(`${api}/${job.id}`))
-      if (j.status === done) return
-      if (j.status !== 'validating' && j.status !== 'committing' && j.status !== 'uploaded')
-        throw new Error(`import ${job.id}: ${JSON.stringify(j)}`)
-      await page.waitForTimeout(100)
-    }
-    throw new Error(`import ${job.id} never reached ${done}`)
-  }
-  await json(await page.request.post(`${api}/${job.id}/validate`, { headers: CLIENT, data: {} }))
-  await waitFor('validated')
-  await json(
-    await page.request.post(`${api}/${job.id}/commit`, {
-      headers: CLIENT,
-      data: { skipInvalid: false },
-    }),
-  )
-  await waitFor('committed')
 }
 
 describe('owner review and permit in a real browser', () => {

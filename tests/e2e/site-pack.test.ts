@@ -11,8 +11,8 @@ import {
   openPage,
   signIn as signInAs,
 } from './browser.ts'
+import { CLIENT, importNetwork, json } from './api-helpers.ts'
 
-const CLIENT = { 'X-Trenchward-Client': '1' }
 const PHONE = { width: 390, height: 844 }
 
 const baseUrl = inject('baseUrl').replace(/\/$/, '')
@@ -54,54 +54,15 @@ async function newPage(viewport = { width: 1440, height: 900 }) {
 const shot = (page: Page, name: string, fullPage = false) =>
   page.screenshot({ path: join(SCREENSHOT_DIR, `site-pack-${name}.png`), fullPage })
 
-async function json<T>(res: {
-  ok(): boolean
-  status(): number
-  text(): Promise<string>
-}): Promise<T> {
-  const text = await res.text()
-  if (!res.ok()) throw new Error(`${res.status()}: ${text}`)
-  return JSON.parse(text) as T
-}
-
 /** Engineer's network, applicant's works, acceptance with an attendance condition, grant. */
 async function grantedPermit(run: string): Promise<{ id: number; officer: Page }> {
   const { page: engineer } = await newPage()
   await signInAs(engineer, baseUrl, byRole('asset_engineer'))
-  const api = `${baseUrl}/api/network/imports`
-  const job = await json<{ id: number }>(
-    await engineer.request.post(api, {
-      headers: CLIENT,
-      multipart: {
-        file: {
-          name: 'mains.geojson',
-          mimeType: 'application/geo+json',
-          buffer: Buffer.from(
-            featureCollection([lineFeature(pe100Properties(`SP-${run}`), [at(0, 0), at(60, 0)])]),
-          ),
-        },
-      },
-    }),
+  await importNetwork(
+    engineer,
+    baseUrl,
+    featureCollection([lineFeature(pe100Properties(`SP-${run}`), [at(0, 0), at(60, 0)])]),
   )
-  const waitFor = async (status: string) => {
-    for (let i = 0; i < 300; i++) {
-      const j = await json<{ status: string }>(await engineer.request.get(`${api}/${job.id}`))
-      if (j.status === status) return
-      await engineer.waitForTimeout(100)
-    }
-    throw new Error(`import never reached ${status}`)
-  }
-  await json(
-    await engineer.request.post(`${api}/${job.id}/validate`, { headers: CLIENT, data: {} }),
-  )
-  await waitFor('validated')
-  await json(
-    await engineer.request.post(`${api}/${job.id}/commit`, {
-      headers: CLIENT,
-      data: { skipInvalid: false },
-    }),
-  )
-  await waitFor('committed')
   const tpl = await json<{ id: number; code: string }>(
     await engineer.request.post(`${baseUrl}/api/condition-templates`, {
       headers: CLIENT,
