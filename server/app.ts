@@ -31,6 +31,9 @@ import { paymentWebhookRouter } from './routes/payment-webhook.ts'
 import { permitOfficeRouter } from './routes/permit-office.ts'
 import { permitsRouter } from './routes/permits.ts'
 import { reviewsRouter } from './routes/reviews.ts'
+import { emergencyWorksRouter } from './routes/emergency-works.ts'
+import { changeRequestsRouter } from './routes/permit-change-requests.ts'
+import { siteWorksRouter } from './routes/site-works.ts'
 import { verifyRouter } from './routes/verify.ts'
 
 export interface CreatedApp {
@@ -123,6 +126,9 @@ export function createApp(cfg: AppConfig, sequelize: Sequelize): CreatedApp {
   api.use('/permit-office', permitOfficeRouter(sequelize))
   api.use('/permits', permitsRouter(sequelize))
   api.use('/coordination', coordinationRouter(sequelize))
+  api.use('/site-works', siteWorksRouter(sequelize))
+  api.use('/change-requests', changeRequestsRouter(sequelize))
+  api.use('/emergency-works', emergencyWorksRouter(sequelize))
   api.use('/verify', verifyRouter)
   api.use('/fee-schedules', feeSchedulesRouter)
   api.use(feesRouter(sequelize))

@@ -76,6 +76,17 @@ const envSchema = z.object({
   MAP_LINES_MAX_FEATURES: z.coerce.number().int().min(1).max(200_000).default(20_000),
   /** Working days an owner has to answer a review (weekends and PUBLIC_HOLIDAYS skipped). */
   REVIEW_PERIOD_WORKING_DAYS: z.coerce.number().int().min(1).max(260).default(10),
+  /** Working days a touched owner has to answer a permit change request. */
+  CHANGE_REVIEW_WORKING_DAYS: z.coerce.number().int().min(1).max(60).default(3),
+  /** Hours within which the full application must follow emergency works. */
+  EMERGENCY_FOLLOW_UP_H: z.coerce
+    .number()
+    .int()
+    .min(1)
+    .max(24 * 14)
+    .default(48),
+  /** Owners with a pipe this close to emergency works are alerted, m (at least the screening minimum). */
+  EMERGENCY_ALERT_DISTANCE_M: z.coerce.number().min(1).max(500).default(25),
   /** Public holidays as a comma list of YYYY-MM-DD; they do not count as working days. */
   PUBLIC_HOLIDAYS: z
     .string()
@@ -127,7 +138,12 @@ const envSchema = z.object({
   BCRYPT_COST: z.coerce.number().int().min(12).max(15).default(12),
   SIGN_IN_MAX_FAILURES: z.coerce.number().int().min(1).max(100).default(5),
   /** How long an e-mailed password-reset link stays good, in minutes. */
-  PASSWORD_RESET_TTL_MIN: z.coerce.number().int().min(5).max(24 * 60).default(60),
+  PASSWORD_RESET_TTL_MIN: z.coerce
+    .number()
+    .int()
+    .min(5)
+    .max(24 * 60)
+    .default(60),
   SIGN_IN_LOCK_MIN: z.coerce
     .number()
     .positive()

@@ -51,6 +51,8 @@ const LIBRARY: Record<'water' | 'gas', ConditionTemplateInput> = {
       },
     ],
     active: true,
+    attendanceNotice_h: null,
+    photoKinds: ['reinstatement'],
   },
   gas: {
     code: 'trial-hole-before-work',
@@ -68,6 +70,8 @@ const LIBRARY: Record<'water' | 'gas', ConditionTemplateInput> = {
       },
     ],
     active: true,
+    attendanceNotice_h: 48,
+    photoKinds: ['trial_holes'],
   },
 }
 

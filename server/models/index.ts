@@ -22,6 +22,12 @@ import { ReviewDecision } from './review-decision.ts'
 import { ReviewMessage } from './review-message.ts'
 import { ReviewMessageAttachment } from './review-message-attachment.ts'
 import { SegmentRerun } from './segment-rerun.ts'
+import { ChangeReview } from './change-review.ts'
+import { EmergencyWorks } from './emergency-works.ts'
+import { PermitChangeRequest } from './permit-change-request.ts'
+import { SiteChecklist } from './site-checklist.ts'
+import { SiteEvent } from './site-event.ts'
+import { SitePhoto } from './site-photo.ts'
 
 export {
   Activity,
@@ -48,6 +54,8 @@ export {
   SegmentRerun,
 }
 export { ApplicationFee, FeeSchedule, PaymentEvent, Receipt }
+
+export { ChangeReview, EmergencyWorks, PermitChangeRequest, SiteChecklist, SiteEvent, SitePhoto }
 
 let initialised: Sequelize | undefined
 
@@ -108,5 +116,18 @@ export function initModels(sequelize: Sequelize): void {
   FeeSchedule.belongsTo(Organisation, { foreignKey: 'authorityOrganisationId', as: 'authority' })
   FeeSchedule.belongsTo(User, { foreignKey: 'createdByUserId', as: 'createdBy' })
   ApplicationFee.belongsTo(FeeSchedule, { foreignKey: 'feeScheduleId', as: 'schedule' })
+  SiteEvent.initModel(sequelize)
+  SitePhoto.initModel(sequelize)
+  SiteChecklist.initModel(sequelize)
+  PermitChangeRequest.initModel(sequelize)
+  ChangeReview.initModel(sequelize)
+  EmergencyWorks.initModel(sequelize)
+  SiteEvent.belongsTo(User, { foreignKey: 'recordedByUserId', as: 'recordedBy' })
+  PermitChangeRequest.hasMany(ChangeReview, { foreignKey: 'changeRequestId', as: 'reviews' })
+  ChangeReview.belongsTo(Organisation, { foreignKey: 'ownerOrganisationId', as: 'owner' })
+  EmergencyWorks.belongsTo(Organisation, {
+    foreignKey: 'applicantOrganisationId',
+    as: 'applicantOrganisation',
+  })
   initialised = sequelize
 }

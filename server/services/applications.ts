@@ -88,7 +88,8 @@ async function loadForUser(
   return a
 }
 
-async function writeActivities(
+/** Replace the stored activities of an application (positions in order), inside a transaction. */
+export async function writeActivities(
   sequelize: Sequelize,
   applicationId: number,
   activities: ActivityInput[],

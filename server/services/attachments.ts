@@ -1,6 +1,6 @@
 import { rm } from 'node:fs/promises'
 import type { IncomingMessage } from 'node:http'
-import { basename, join, resolve, sep } from 'node:path'
+import { basename, join, resolve } from 'node:path'
 import { z } from 'zod'
 import type { AttachmentDto } from '../../shared/types/attachments.ts'
 import { ATTACHMENT_KINDS } from '../../shared/types/attachments.ts'
@@ -13,6 +13,8 @@ import { canRead } from './applications.ts'
 import { recordAudit } from './audit.ts'
 import { sniffContentType } from './uploads/content-type.ts'
 import { receiveFile } from './uploads/receive-file.ts'
+import { storedFile } from './uploads/stored-file.ts'
+import type { StoredFile } from './uploads/stored-file.ts'
 
 /** Statuses in which the applicant may still add documents (drafts, and while it is being decided). */
 const OPEN_FOR_DOCUMENTS: readonly ApplicationStatus[] = [
@@ -140,14 +142,11 @@ export async function attachmentFile(
   user: User,
   applicationId: number,
   attachmentId: number,
-): Promise<{ path: string; filename: string; contentType: string }> {
+): Promise<StoredFile> {
   await loadReadable(user, applicationId)
   const row = await ApplicationAttachment.findOne({ where: { id: attachmentId, applicationId } })
   if (!row) throw notFound('attachment', attachmentId)
-  const dir = attachmentDir()
-  const path = resolve(join(dir, row.storageName))
-  if (!path.startsWith(dir + sep)) throw notFound('attachment', attachmentId)
-  return { path, filename: row.originalFilename, contentType: row.contentType }
+  return storedFile(attachmentDir(), row, 'attachment', attachmentId)
 }
 
 /** Remove a document from a draft. */

@@ -26,6 +26,8 @@ export function toConditionTemplateDto(t: ConditionTemplate): ConditionTemplateD
     text: t.text,
     parameters: parseJson(t.parameters),
     active: Boolean(t.active),
+    attendanceNotice_h: t.attendanceNotice_h ?? null,
+    photoKinds: parseJson<ConditionTemplateDto['photoKinds'] | null>(t.photoKinds) ?? [],
     version: t.version,
     updatedAt: t.updatedAt.toISOString(),
   }
@@ -77,6 +79,8 @@ export async function createConditionTemplate(
       text: input.text,
       parameters: input.parameters,
       active: input.active,
+      attendanceNotice_h: input.attendanceNotice_h,
+      photoKinds: input.photoKinds,
     })
     await recordAudit({
       actorUserId: user.id,
@@ -107,6 +111,8 @@ export async function updateConditionTemplate(
         text: input.text,
         parameters: input.parameters,
         active: input.active,
+        attendanceNotice_h: input.attendanceNotice_h,
+        photoKinds: input.photoKinds,
         version: input.version + 1,
       },
       { where: { id, version: input.version } },

@@ -1,5 +1,15 @@
 import { Op } from 'sequelize'
-import { Application, Assessment, Organisation, PipeSegment, User } from '../models/index.ts'
+import {
+  Application,
+  Assessment,
+  ChangeReview,
+  Organisation,
+  PermitChangeRequest,
+  PipeSegment,
+  User,
+} from '../models/index.ts'
+import { countOverdueFollowUps } from './emergency-works.ts'
+import { siteStates } from './site-works.ts'
 
 /** One line of a user's "needs my attention today" list. */
 export interface HomeItem {
@@ -7,6 +17,12 @@ export interface HomeItem {
   label: string
   count: number
   to: string
+}
+
+async function onSiteCount(): Promise<number> {
+  const granted = await Application.findAll({ where: { status: 'granted' }, attributes: ['id'] })
+  const states = await siteStates(granted.map((a) => a.id))
+  return [...states.values()].filter((s) => s === 'on_site').length
 }
 
 /**
@@ -52,6 +68,14 @@ export async function homeItemsFor(user: User): Promise<HomeItem[]> {
           }),
           to: '/my-applications',
         },
+        {
+          key: 'granted',
+          label: 'Granted works (site pack, start and finish)',
+          count: await Application.count({
+            where: { applicantOrganisationId: user.organisationId, status: 'granted' },
+          }),
+          to: '/my-applications',
+        },
       ]
     case 'asset_engineer':
       return [
@@ -73,6 +97,14 @@ export async function homeItemsFor(user: User): Promise<HomeItem[]> {
           }),
           to: '/network',
         },
+        {
+          key: 'change-reviews',
+          label: 'Permit changes that touch your pipes, waiting for you',
+          count: await ChangeReview.count({
+            where: { ownerOrganisationId: user.organisationId, state: 'waiting' },
+          }),
+          to: '/change-requests',
+        },
       ]
     case 'permit_officer':
       return [
@@ -87,6 +119,24 @@ export async function homeItemsFor(user: User): Promise<HomeItem[]> {
           label: 'Ready for decision',
           count: await Application.count({ where: { status: 'ready_for_decision' } }),
           to: '/applications',
+        },
+        {
+          key: 'on-site',
+          label: 'Works on site now',
+          count: await onSiteCount(),
+          to: '/works-on-site',
+        },
+        {
+          key: 'changes-ready',
+          label: 'Permit changes ready for decision',
+          count: await PermitChangeRequest.count({ where: { status: 'ready_for_decision' } }),
+          to: '/change-requests',
+        },
+        {
+          key: 'emergency-overdue',
+          label: 'Emergency works whose full application is overdue',
+          count: await countOverdueFollowUps(),
+          to: '/works-on-site',
         },
       ]
   }

@@ -33,8 +33,12 @@ export async function refreshApplicationStatus(
 ): Promise<ApplicationStatus> {
   if (!REVIEWABLE_STATUSES.includes(application.status)) return application.status
   // A locking read: it sees the latest committed rows, not the transaction's first snapshot.
+  // Forced onto the (application, owner) index so its share locks cover this application's
+  // reviews only; through the (state, due_on) index they spanned other applications' rows and
+  // decisions on different applications deadlocked under load.
   const [row] = await sequelize.query<{ n: number | bigint }>(
     `SELECT COUNT(*) AS n FROM owner_reviews
+      FORCE INDEX (owner_reviews_application_id_owner_organisation_id)
       WHERE application_id = ? AND state IN ('waiting', 'information_requested') LOCK IN SHARE MODE`,
     { replacements: [application.id], type: QueryTypes.SELECT, transaction },
   )

@@ -1,4 +1,5 @@
 import { z } from 'zod'
+import { REQUIRED_PHOTO_KINDS } from '../types/site-works.ts'
 
 /**
  * An owner's library condition. The text names its parameters in braces, e.g.
@@ -45,6 +46,16 @@ const templateFields = {
   text: z.string().trim().min(3).max(2000),
   parameters: z.array(conditionParameterSchema).max(10).default([]),
   active: z.boolean().default(true),
+  /** The owner attends the works and wants the planned start this many hours ahead. */
+  attendanceNotice_h: z
+    .number()
+    .int('Whole hours')
+    .min(1, 'At least 1 hour')
+    .max(720, 'At most 720 hours (30 days)')
+    .nullable()
+    .default(null),
+  /** Photos the crew must upload before the works can be recorded finished. */
+  photoKinds: z.array(z.enum(REQUIRED_PHOTO_KINDS)).max(2).default([]),
 }
 
 function checkPlaceholders(

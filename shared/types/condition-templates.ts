@@ -18,6 +18,10 @@ export interface ConditionTemplateDto {
   text: string
   parameters: ConditionParameterDefinition[]
   active: boolean
+  /** The owner attends the works and wants the planned start this many hours ahead. */
+  attendanceNotice_h: number | null
+  /** Photos (reinstatement, trial holes) the crew must upload before recording the finish. */
+  photoKinds: ('reinstatement' | 'trial_holes')[]
   version: number
   updatedAt: string
 }

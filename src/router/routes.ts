@@ -2,6 +2,8 @@ import type { RouteRecordRaw } from 'vue-router'
 import {
   matAddLocationAlt,
   matAssignment,
+  matConstruction,
+  matEditCalendar,
   matFactCheck,
   matFolderOpen,
   matHistory,
@@ -12,11 +14,11 @@ import {
   matMarkEmailRead,
   matPeople,
   matRequestQuote,
+  matWarning,
 } from '@quasar/extras/material-icons'
 import './route-meta.ts'
 
 // Every page is a lazy import, so each screen (and the map code) loads only when it is opened.
-const BeingBuiltPage = () => import('../pages/BeingBuiltPage.vue')
 
 /** Routes as data; the order inside the main layout is the order of the navigation. */
 export const routes: RouteRecordRaw[] = [
@@ -80,6 +82,19 @@ export const routes: RouteRecordRaw[] = [
         name: 'application-detail',
         component: () => import('../pages/ApplicationPage.vue'),
         meta: { title: 'Application', roles: ['applicant', 'permit_officer', 'admin'] },
+      },
+
+      {
+        path: 'emergency-works',
+        name: 'emergency-works',
+        component: () => import('../pages/EmergencyWorksPage.vue'),
+        meta: {
+          title: 'Emergency works',
+          navIcon: matWarning,
+          roles: ['applicant'],
+          summary:
+            'Urgent repairs: report and start at once; nearby owners are told; the full application follows.',
+        },
       },
 
       // Network engineer
@@ -170,6 +185,30 @@ export const routes: RouteRecordRaw[] = [
         },
       },
       {
+        path: 'change-requests',
+        name: 'change-requests',
+        component: () => import('../pages/ChangeRequestsPage.vue'),
+        meta: {
+          title: 'Permit changes',
+          navIcon: matEditCalendar,
+          roles: ['asset_engineer', 'permit_officer'],
+          summary:
+            'Requests to extend or vary a granted permit; owners answer those that touch their pipes, the office decides.',
+        },
+      },
+      {
+        path: 'works-on-site',
+        name: 'works-on-site',
+        component: () => import('../pages/WorksOnSitePage.vue'),
+        meta: {
+          title: 'Works on site',
+          navIcon: matConstruction,
+          roles: ['permit_officer'],
+          summary:
+            'Works on the ground today: on site, granted and not started, and emergency works with their follow-up deadline.',
+        },
+      },
+      {
         path: 'fee-schedule',
         name: 'fee-schedule',
         component: () => import('../pages/FeeSchedulePage.vue'),
@@ -199,6 +238,23 @@ export const routes: RouteRecordRaw[] = [
         name: 'admin-audit',
         component: () => import('../pages/AuditLogPage.vue'),
         meta: { title: 'Audit log', navIcon: matHistory, roles: ['admin'] },
+      },
+    ],
+  },
+
+  // The crew's site pack: phone first, without the desktop navigation; works offline once opened.
+  {
+    path: '/site',
+    component: () => import('../layouts/PlainLayout.vue'),
+    children: [
+      {
+        path: ':id(\\d+)',
+        name: 'site-pack',
+        component: () => import('../pages/SitePackPage.vue'),
+        meta: {
+          title: 'Site pack',
+          roles: ['applicant', 'asset_engineer', 'permit_officer', 'admin'],
+        },
       },
     ],
   },

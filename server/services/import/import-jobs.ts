@@ -242,9 +242,7 @@ export const STALE_JOB_MIN = 10
  * transaction died with its connection, so nothing of it was written). Only jobs without
  * progress for STALE_JOB_MIN minutes are touched, so passes running in other processes are left alone.
  */
-export async function failInterruptedImports(
-  stale_ms = STALE_JOB_MIN * 60_000,
-): Promise<number> {
+export async function failInterruptedImports(stale_ms = STALE_JOB_MIN * 60_000): Promise<number> {
   const [n] = await NetworkImport.update(
     {
       status: 'failed',

@@ -5,7 +5,8 @@ import type { PipeMedium } from '../../utils/pipe-media.ts'
  * What a page hands to TownMap to draw above the streets. Plain data (GeoJSON in WGS84), so
  * pages and stores never import the map library.
  */
-export type MapLayerKind = 'pipes' | 'works' | 'works-selected' | 'outline'
+export type MapLayerKind =
+  'pipes' | 'works' | 'works-selected' | 'outline' | 'zone' | 'live' | 'emergency'
 
 export interface MapLayerSpec {
   /** Unique per map; also reported back in feature clicks. */
@@ -14,7 +15,8 @@ export interface MapLayerSpec {
    * 'pipes': lines coloured by each feature's `medium` property (or `medium` below);
    * 'works': planned works in the works colour; 'works-selected': works picked out by the
    * user, drawn bolder and labelled with each feature's `reference`; 'outline': a neutral
-   * boundary.
+   * boundary; 'zone': a hand-dig zone (band where no machine may dig); 'live': works on site
+   * now; 'emergency': emergency works started before any permit.
    */
   kind: MapLayerKind
   /** Shown in the legend. */

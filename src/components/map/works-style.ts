@@ -66,3 +66,44 @@ export function createOutlineStyle(): Style {
     zIndex: 150,
   })
 }
+
+/** Colour of hand-dig zones: a dark orange no pipe medium uses. */
+export const HAND_DIG_COLOUR = '#d35400'
+
+/** A hand-dig zone: a solid dark-orange edge with a light orange fill. */
+export function createZoneStyle(): Style {
+  return new Style({
+    stroke: new Stroke({ color: HAND_DIG_COLOUR, width: 1.5 }),
+    fill: new Fill({ color: 'rgba(211, 84, 0, 0.22)' }),
+    zIndex: 200,
+  })
+}
+
+/** Colour of emergency works: a strong red. */
+export const EMERGENCY_COLOUR = '#c62828'
+
+/** Works on site now: the works colour, solid and heavier than planned works. */
+export function createLiveStyle(): Style {
+  const fill = new Fill({ color: 'rgba(194, 24, 143, 0.38)' })
+  return new Style({
+    stroke: new Stroke({ color: WORKS_COLOUR, width: 3.5 }),
+    fill,
+    image: new Circle({ radius: 8, fill, stroke: new Stroke({ color: WORKS_COLOUR, width: 3 }) }),
+    zIndex: 320,
+  })
+}
+
+/** Emergency works: red, solid, with a large dot for a point. */
+export function createEmergencyStyle(): Style {
+  const fill = new Fill({ color: 'rgba(198, 40, 40, 0.35)' })
+  return new Style({
+    stroke: new Stroke({ color: EMERGENCY_COLOUR, width: 3 }),
+    fill,
+    image: new Circle({
+      radius: 9,
+      fill,
+      stroke: new Stroke({ color: EMERGENCY_COLOUR, width: 3 }),
+    }),
+    zIndex: 340,
+  })
+}

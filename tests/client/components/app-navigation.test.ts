@@ -17,24 +17,32 @@ async function labelsFor(role: Role): Promise<string[]> {
 }
 
 describe('AppNavigation', () => {
-  it('shows an applicant their applications and nothing of other roles', async () => {
-    expect(await labelsFor('applicant')).toEqual(['Home', 'My applications', 'New application'])
+  it('shows an applicant their applications, emergency works and nothing of other roles', async () => {
+    expect(await labelsFor('applicant')).toEqual([
+      'Home',
+      'My applications',
+      'New application',
+      'Emergency works',
+    ])
   })
 
-  it('shows a network engineer reviews, network and condition library', async () => {
+  it('shows a network engineer reviews, network, condition library and permit changes', async () => {
     expect(await labelsFor('asset_engineer')).toEqual([
       'Home',
       'Reviews',
       'Network',
       'Condition library',
+      'Permit changes',
     ])
   })
 
-  it('shows a permit officer applications, the works map and the fee schedule', async () => {
+  it('shows a permit officer applications, the works map, permit changes, works on site and the fee schedule', async () => {
     expect(await labelsFor('permit_officer')).toEqual([
       'Home',
       'Applications',
       'Works map',
+      'Permit changes',
+      'Works on site',
       'Fee schedule',
     ])
   })

@@ -16,6 +16,8 @@ const template: ConditionTemplateDto = {
   text: 'Dig by hand within {distance_m} m of the pipe.',
   parameters: [{ name: 'distance_m', label: 'Distance', unit: 'm', kind: 'number', default: 0.5 }],
   active: true,
+  attendanceNotice_h: null,
+  photoKinds: [],
   version: 0,
   updatedAt: '2026-12-01T10:00:00Z',
 }
