@@ -13,8 +13,8 @@ export function paymentWebhookRouter(sequelize: Sequelize): Router {
   const router = express.Router()
   router.post(
     '/',
-    express.raw({ type: '*/*', limit: '1mb' }),
     allow('public'),
+    express.raw({ type: '*/*', limit: '1mb' }),
     async (req, res) => {
       const body = Buffer.isBuffer(req.body) ? req.body : Buffer.alloc(0)
       res.json(

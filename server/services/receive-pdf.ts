@@ -28,6 +28,9 @@ export async function receivePdf(req: IncomingMessage, maxBytes: number): Promis
   let tooLarge = false
   await new Promise<void>((ok, fail) => {
     bb.on('file', (name, stream) => {
+      // A body cut short errors the part's stream as well as busboy; busboy's handler below
+      // answers, so the part's error must not go unheard (it would crash the process).
+      stream.on('error', () => undefined)
       if (name !== 'file' || sawFile) {
         stream.resume()
         return

@@ -35,7 +35,10 @@ export const simplePolygonSchema = z
       .length(1, 'Draw one outline without holes'),
   })
   .superRefine((g, ctx) => {
-    const ring = g.coordinates[0]!
+    // zod runs this even when the shape checks above failed (they are not fatal), so a ring
+    // that is missing or too short is left to the issues already raised.
+    const ring = g.coordinates?.[0]
+    if (!Array.isArray(ring) || ring.length < 4 || g.coordinates.length !== 1) return
     if (!samePoint(ring[0]!, ring[ring.length - 1]!)) {
       ctx.addIssue({
         code: 'custom',

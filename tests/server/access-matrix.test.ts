@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createApp } from '../../server/app.ts'
 import { apiRoutes, fillPath } from '../helpers/api-routes.ts'
@@ -71,6 +72,157 @@ const period = () => {
 
 /** Keyed `METHOD /api/path` exactly as the router lists it. */
 const MATRIX: Record<string, Entry> = {
+  // Password reset by e-mailed link: public, the same answer whoever asks.
+  'POST /api/auth/password-reset/request': {
+    path: none,
+    // A new address per call, so the per-address limit of 5 requests does not answer instead.
+    body: () => ({ email: `nobody-${randomUUID().slice(0, 8)}@example.test` }),
+    expect: { ...all(202), anonymous: 202 },
+  },
+  'POST /api/auth/password-reset/complete': {
+    path: none,
+    body: () => ({ token: 'x'.repeat(43), password: 'a long new password here' }),
+    // An unknown token is refused as a rule, not as malformed input.
+    expect: { ...all(422), anonymous: 422 },
+  },
+  // Payment service events: public, signed by the payment service; this test app has no
+  // payment set-up, so every call is refused as unavailable (the signature is tested with the
+  // fake payment server in fees-payments.test.ts).
+  'POST /api/payments/webhook': {
+    path: none,
+    body: () => ({ id: 'evt_unsigned', type: 'checkout.session.completed' }),
+    expect: { ...all(503), anonymous: 503 },
+  },
+  // Works on site (by application id) and the crew's site pack.
+  'GET /api/site-works/live': { path: none, query: period(), expect: office(200, 200) },
+  'GET /api/site-works/:id': {
+    path: (fx) => ({ id: fx.grantedId }),
+    expect: parties(200, 404),
+  },
+  'GET /api/site-works/:id/pack': {
+    path: (fx) => ({ id: fx.grantedId }),
+    expect: parties(200, 404),
+  },
+  'PUT /api/site-works/:id/checklist': {
+    path: (fx) => ({ id: fx.grantedId }),
+    body: () => ({}),
+    // The body is checked first: a malformed body tells nothing about the application.
+    expect: { applicant: 400, otherApplicant: 400 },
+  },
+  'POST /api/site-works/:id/planned-start': {
+    path: (fx) => ({ id: fx.grantedId }),
+    body: () => ({}),
+    // The body is checked first: a malformed body tells nothing about the application.
+    expect: { applicant: 400, otherApplicant: 400 },
+  },
+  'POST /api/site-works/:id/start': {
+    path: (fx) => ({ id: fx.grantedId }),
+    body: () => ({ at: 'yesterday' }),
+    // The body is checked first: a malformed body tells nothing about the application.
+    expect: { applicant: 400, otherApplicant: 400 },
+  },
+  'POST /api/site-works/:id/finish': {
+    path: (fx) => ({ id: fx.grantedId }),
+    body: () => ({ at: 'yesterday' }),
+    // The body is checked first: a malformed body tells nothing about the application.
+    expect: { applicant: 400, otherApplicant: 400 },
+  },
+  'POST /api/site-works/:id/photos': {
+    path: (fx) => ({ id: fx.grantedId }),
+    body: () => ({}),
+    expect: { applicant: 400, otherApplicant: 404 },
+  },
+  'GET /api/site-works/:id/photos/:photoId/file': {
+    path: (fx) => ({ id: fx.grantedId, photoId: 999_999_999 }),
+    expect: parties(404, 404),
+  },
+  // Requests to change a granted permit.
+  'GET /api/change-requests': {
+    path: none,
+    expect: { ...engineers(200, 200, 200), ...office(200) },
+  },
+  'GET /api/change-requests/for-application/:id': {
+    path: (fx) => ({ id: fx.grantedId }),
+    expect: parties(200, 404),
+  },
+  'POST /api/change-requests/for-application/:id': {
+    path: (fx) => ({ id: fx.grantedId }),
+    body: () => ({}),
+    // The body is checked first: a malformed body tells nothing about the application.
+    expect: { applicant: 400, otherApplicant: 400 },
+  },
+  'GET /api/change-requests/:id': {
+    path: () => ({ id: 999_999_999 }),
+    expect: parties(404, 404),
+  },
+  'POST /api/change-requests/:id/review': {
+    path: () => ({ id: 999_999_999 }),
+    body: () => ({}),
+    expect: engineers(400, 400),
+  },
+  'POST /api/change-requests/:id/decision': {
+    path: () => ({ id: 999_999_999 }),
+    body: () => ({}),
+    expect: office(400),
+  },
+  'POST /api/change-requests/:id/withdraw': {
+    path: () => ({ id: 999_999_999 }),
+    body: () => ({}),
+    expect: { applicant: 404, otherApplicant: 404 },
+  },
+  // Emergency works.
+  'GET /api/emergency-works': { path: none, expect: parties(200, 200) },
+  'POST /api/emergency-works': {
+    path: none,
+    body: () => ({}),
+    expect: { applicant: 400, otherApplicant: 400 },
+  },
+  'POST /api/emergency-works/:id/follow-up': {
+    path: () => ({ id: 999_999_999 }),
+    body: () => ({}),
+    expect: { applicant: 400, otherApplicant: 400 },
+  },
+  // Fees, payments and receipts.
+  'GET /api/fee-schedules': { path: none, expect: office(200) },
+  'POST /api/fee-schedules': { path: none, body: () => ({}), expect: office(400) },
+  'GET /api/applications/:id/fees': {
+    path: (fx) => ({ id: fx.submittedId }),
+    expect: { applicant: 200, otherApplicant: 404, officer: 200, otherOfficer: 200, admin: 200 },
+  },
+  'PUT /api/applications/:id/fees/terms': {
+    path: (fx) => ({ id: fx.submittedId }),
+    body: () => ({}),
+    expect: office(400),
+  },
+  'POST /api/fees/:id/checkout': {
+    path: () => ({ id: 999_999_999 }),
+    body: () => ({}),
+    expect: { applicant: 404, otherApplicant: 404 },
+  },
+  'POST /api/fees/:id/confirm': {
+    path: () => ({ id: 999_999_999 }),
+    body: () => ({}),
+    expect: { applicant: 404, otherApplicant: 404 },
+  },
+  'POST /api/fees/:id/refund': {
+    path: () => ({ id: 999_999_999 }),
+    body: () => ({}),
+    expect: office(404),
+  },
+  'POST /api/fees/:id/record-payment': {
+    path: () => ({ id: 999_999_999 }),
+    body: () => ({}),
+    expect: office(400),
+  },
+  'POST /api/fees/:id/record-refund': {
+    path: () => ({ id: 999_999_999 }),
+    body: () => ({}),
+    expect: office(400),
+  },
+  'GET /api/receipts/:id/document': {
+    path: () => ({ id: 999_999_999 }),
+    expect: { applicant: 404, otherApplicant: 404, officer: 404, otherOfficer: 404, admin: 404 },
+  },
   'GET /api/health': { path: none, expect: { ...all(200), anonymous: 200 } },
   'POST /api/auth/sign-in': {
     path: none,

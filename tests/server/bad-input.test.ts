@@ -31,6 +31,22 @@ import {
 } from '../../shared/schemas/reviews.ts'
 import { importCommitSchema } from '../../shared/schemas/network-query.ts'
 import { z as zod } from 'zod'
+import { passwordResetRequestSchema, passwordResetSchema } from '../../shared/schemas/auth.ts'
+import {
+  feeScheduleInputSchema,
+  offlineMovementInputSchema,
+  paymentTermsInputSchema,
+} from '../../shared/schemas/fees.ts'
+import {
+  changeRequestDecisionSchema,
+  changeRequestSchema,
+  changeReviewDecisionSchema,
+  emergencyFollowUpSchema,
+  emergencyWorksSchema,
+  plannedStartSchema,
+  siteChecklistSchema,
+  siteEventSchema,
+} from '../../shared/schemas/site-works.ts'
 import { apiRoutes, fillPath } from '../helpers/api-routes.ts'
 import type { ApiRoute } from '../helpers/api-routes.ts'
 import {
@@ -95,7 +111,72 @@ interface Fuzz {
 const validDraft = (fx: Fx) => fx.fullDraft('Fuzz pit')
 const hugeId = fc.constantFrom(2 ** 31, 2 ** 53 - 1, 99999999, 2147483647)
 
+/** The top-level field names of an object schema (refined ones keep theirs under `.shape` too). */
+const keysOf = (schema: z.ZodType): string[] => {
+  const shape = (schema as unknown as { shape?: Record<string, unknown> }).shape
+  return shape ? Object.keys(shape) : []
+}
+/** An entry for a JSON route checked by its shared schema; `id` fills every path parameter. */
+const bySchema = (
+  caller: Caller,
+  schema: z.ZodType,
+  params: (fx: Fx) => Record<string, string | number> = () => ({}),
+): Fuzz => ({ caller, params, schema, fields: keysOf(schema) })
+const NO_ROW = 999_999_999
+
 const FUZZ: Record<string, Fuzz> = {
+  // Password reset, payments, fees, works on site, change requests and emergencies.
+  'POST /api/auth/password-reset/request': bySchema('anonymous', passwordResetRequestSchema),
+  'POST /api/auth/password-reset/complete': bySchema('anonymous', passwordResetSchema),
+  'POST /api/payments/webhook': { caller: 'anonymous', params: () => ({}) },
+  'POST /api/fee-schedules': bySchema('officer', feeScheduleInputSchema),
+  'PUT /api/applications/:id/fees/terms': bySchema('officer', paymentTermsInputSchema, (fx) => ({
+    id: fx.submittedId,
+  })),
+  'POST /api/fees/:id/checkout': { caller: 'applicant', params: () => ({ id: NO_ROW }) },
+  'POST /api/fees/:id/confirm': { caller: 'applicant', params: () => ({ id: NO_ROW }) },
+  'POST /api/fees/:id/refund': { caller: 'officer', params: () => ({ id: NO_ROW }) },
+  'POST /api/fees/:id/record-payment': bySchema('officer', offlineMovementInputSchema, () => ({
+    id: NO_ROW,
+  })),
+  'POST /api/fees/:id/record-refund': bySchema('officer', offlineMovementInputSchema, () => ({
+    id: NO_ROW,
+  })),
+  'PUT /api/site-works/:id/checklist': bySchema('applicant', siteChecklistSchema, (fx) => ({
+    id: fx.submittedId,
+  })),
+  'POST /api/site-works/:id/planned-start': bySchema('applicant', plannedStartSchema, (fx) => ({
+    id: fx.submittedId,
+  })),
+  'POST /api/site-works/:id/start': bySchema('applicant', siteEventSchema, (fx) => ({
+    id: fx.submittedId,
+  })),
+  'POST /api/site-works/:id/finish': bySchema('applicant', siteEventSchema, (fx) => ({
+    id: fx.submittedId,
+  })),
+  'POST /api/site-works/:id/photos': {
+    caller: 'applicant',
+    params: (fx) => ({ id: fx.submittedId }),
+    multipart: multipartBody({ fieldNames: ['kind'], bytes: notADocument }),
+  },
+  'POST /api/change-requests/for-application/:id': bySchema(
+    'applicant',
+    changeRequestSchema,
+    (fx) => ({ id: fx.submittedId }),
+  ),
+  'POST /api/change-requests/:id/review': bySchema('engineer', changeReviewDecisionSchema, () => ({
+    id: NO_ROW,
+  })),
+  'POST /api/change-requests/:id/decision': bySchema(
+    'officer',
+    changeRequestDecisionSchema,
+    () => ({ id: NO_ROW }),
+  ),
+  'POST /api/change-requests/:id/withdraw': { caller: 'applicant', params: () => ({ id: NO_ROW }) },
+  'POST /api/emergency-works': bySchema('applicant', emergencyWorksSchema),
+  'POST /api/emergency-works/:id/follow-up': bySchema('applicant', emergencyFollowUpSchema, () => ({
+    id: NO_ROW,
+  })),
   'POST /api/auth/sign-in': {
     caller: 'anonymous',
     params: () => ({}),
@@ -523,7 +604,16 @@ const describeSent = (s: Sent) => JSON.stringify(s).slice(0, 400)
 
 beforeAll(async () => {
   // Behind a proxy each client has its own address (X-Forwarded-For), as in production.
-  app = await startTestApp({ TRUST_PROXY: '1' })
+  // Payment keys with no payment service behind them: webhooks are checked by signature (and
+  // refused), and no generated body may reach the service.
+  app = await startTestApp({
+    TRUST_PROXY: '1',
+    STRIPE_SECRET_KEY: 'sk_test_fuzz_only',
+    STRIPE_WEBHOOK_SECRET: 'whsec_fuzz_only',
+    STRIPE_API_HOST: '127.0.0.1',
+    STRIPE_API_PORT: '9',
+    STRIPE_API_PROTOCOL: 'http',
+  })
   const probe = createApp(app.config, app.sequelize)
   routes = apiRoutes(probe.app)
   probe.close()

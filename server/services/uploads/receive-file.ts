@@ -67,6 +67,8 @@ export async function receiveFile(
       fields[name] = value
     })
     bb.on('file', (name, stream, info) => {
+      // A body cut short errors the part's stream too; busboy's own error answers the request.
+      stream.on('error', () => undefined)
       if (name !== 'file' || sawFile) {
         stream.resume()
         return
