@@ -11,7 +11,7 @@ import {
   openPage,
   signIn as signInAs,
 } from './browser.ts'
-import { CLIENT, importNetwork, json } from './api-helpers.ts'
+import { CLIENT, importNetwork, json } from './api-data.ts'
 
 const PHONE = { width: 390, height: 844 }
 
